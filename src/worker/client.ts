@@ -1,0 +1,72 @@
+import { CancelledError, InputError, type InputErrorDetails } from '../core/errors';
+import type { ErrorPayload, FromHost, MessagePortLike, ToHost } from './protocol';
+
+export interface Progress {
+  stage: string;
+  fraction: number;
+}
+
+export interface RunningJob<R> {
+  /** Job id, increasing: the newest job wins when callers supersede older ones. */
+  id: number;
+  /** Resolves with the result; rejects with InputError, CancelledError or Error. */
+  result: Promise<R>;
+  /** Asks the host to stop at its next checkpoint; `result` then rejects with CancelledError. */
+  cancel(): void;
+}
+
+/** Starts jobs on a job host and routes its messages back to each job's promise. */
+export class JobClient {
+  private nextId = 1;
+  private readonly pending = new Map<
+    number,
+    { resolve: (v: unknown) => void; reject: (e: Error) => void; onProgress?: (p: Progress) => void }
+  >();
+
+  constructor(private readonly port: MessagePortLike<FromHost, ToHost>) {
+    port.listen((msg) => this.receive(msg));
+  }
+
+  run<R>(job: string, payload: unknown, options: { onProgress?: (p: Progress) => void; transfer?: Transferable[] } = {}): RunningJob<R> {
+    const id = this.nextId++;
+    const result = new Promise<R>((resolve, reject) => {
+      this.pending.set(id, { resolve: resolve as (v: unknown) => void, reject, onProgress: options.onProgress });
+    });
+    this.port.post({ type: 'run', id, job, payload }, options.transfer);
+    return { id, result, cancel: () => this.port.post({ type: 'cancel', id }) };
+  }
+
+  /** Rejects every pending job (for example when the host died). */
+  failAll(error: Error): void {
+    for (const p of this.pending.values()) p.reject(error);
+    this.pending.clear();
+  }
+
+  private receive(msg: FromHost): void {
+    const p = this.pending.get(msg.id);
+    if (!p) return;
+    switch (msg.type) {
+      case 'progress':
+        p.onProgress?.({ stage: msg.stage, fraction: msg.fraction });
+        return;
+      case 'done':
+        this.pending.delete(msg.id);
+        p.resolve(msg.result);
+        return;
+      case 'cancelled':
+        this.pending.delete(msg.id);
+        p.reject(new CancelledError());
+        return;
+      case 'error':
+        this.pending.delete(msg.id);
+        p.reject(fromErrorPayload(msg.error));
+    }
+  }
+}
+
+export function fromErrorPayload(e: ErrorPayload): Error {
+  if (e.name === 'InputError' && e.details) return new InputError(e.details as InputErrorDetails);
+  const err = new Error(e.message);
+  err.name = e.name;
+  return err;
+}
