@@ -35,11 +35,20 @@ export interface Host {
    * each write is atomic where the platform allows. Null when the user cancels.
    */
   saveFiles(suggestedFolder: string, files: FileToWrite[]): Promise<SaveOutcome | null>;
+  /**
+   * Subscribes to the desktop menu's File > Open… and File > Export… (Electron only; absent in
+   * browser mode, where the app's own buttons do the same). Returns the unsubscribe function.
+   */
+  onMenuCommand?(listener: (command: MenuCommand) => void): () => void;
 }
+
+/** A desktop-menu item the renderer carries out (it owns the study and the data to export). */
+export type MenuCommand = 'open' | 'export';
 
 /** The shape the Electron preload exposes on window.gleanerHost (see electron/preload.ts). */
 export interface ElectronBridge {
   openWindowsFile(): Promise<OpenedFile | null>;
   loadDemo(): Promise<OpenedFile>;
   saveFiles(suggestedFolder: string, files: FileToWrite[]): Promise<SaveOutcome | null>;
+  onMenuCommand(listener: (command: MenuCommand) => void): () => void;
 }
