@@ -1,0 +1,107 @@
+import { DEFAULT_ANALYSIS_PARAMS } from '../core/analysis.types';
+import { PROGRESS_MODES, type ProgressMode } from './progress-bar';
+
+/** A mistake on the command line: the CLI prints the message and exits with code 2. */
+export class UsageError extends Error {
+  constructor(message: string) {
+    super(message);
+    this.name = 'UsageError';
+  }
+}
+
+export interface AnalyzeOptions {
+  input: string;
+  out: string;
+  k: number;
+  seed: number;
+  restarts: number;
+  progress: ProgressMode;
+}
+
+export type Command =
+  | { command: 'help' }
+  | { command: 'version' }
+  | ({ command: 'analyze' } & AnalyzeOptions);
+
+export const USAGE = `Usage: gleaner analyze <windows.csv> --out <dir> [options]
+
+Loads a featurized windows table, scales the features, embeds them with PCA and clusters them
+with k-means. Writes <dir>/windows.csv (id, subject, start, end, x, y, cluster, confidence) and
+<dir>/summary.json (input hash, recipe, algorithms, seed, metrics, subject mix per cluster).
+
+Options:
+  --out <dir>        folder for the outputs (created if missing; never the input's own file)
+  --k <k>            number of clusters, an integer >= 2 (default ${DEFAULT_ANALYSIS_PARAMS.k})
+  --seed <n>         seed for every random step, an integer >= 0 (default ${DEFAULT_ANALYSIS_PARAMS.seed})
+  --restarts <n>     k-means restarts, an integer >= 1 (default ${DEFAULT_ANALYSIS_PARAMS.restarts})
+  --progress <mode>  auto (a bar on a terminal, else nothing), bar, lines (plain lines for
+                     batch logs) or none (default auto)
+  -h, --help         show this help
+  -V, --version      show the version
+
+Exit codes: 0 done, 1 bad input or failure, 2 bad command line, 130 cancelled (Ctrl-C).`;
+
+type ValueFlag = 'out' | 'k' | 'seed' | 'restarts' | 'progress';
+const VALUE_FLAGS: readonly ValueFlag[] = ['out', 'k', 'seed', 'restarts', 'progress'];
+
+/** Parses the arguments after `gleaner`; throws UsageError with a one-line message. */
+export function parseArgs(argv: readonly string[]): Command {
+  if (argv.length === 0) throw new UsageError('missing command: expected "analyze <windows.csv> --out <dir>"');
+  if (argv.includes('--help') || argv.includes('-h')) return { command: 'help' };
+  if (argv.includes('--version') || argv.includes('-V')) return { command: 'version' };
+  const [command, ...rest] = argv;
+  if (command !== 'analyze') throw new UsageError(`unknown command "${command}": expected "analyze"`);
+
+  const values: Partial<Record<ValueFlag, string>> = {};
+  const positionals: string[] = [];
+  for (let i = 0; i < rest.length; i++) {
+    const arg = rest[i];
+    if (!arg.startsWith('-') || arg === '-') {
+      positionals.push(arg);
+      continue;
+    }
+    const eq = arg.indexOf('=');
+    const name = (eq >= 0 ? arg.slice(0, eq) : arg).replace(/^--?/, '');
+    if (!arg.startsWith('--') || !(VALUE_FLAGS as readonly string[]).includes(name)) {
+      throw new UsageError(`unknown option "${eq >= 0 ? arg.slice(0, eq) : arg}"`);
+    }
+    const flag = name as ValueFlag;
+    if (values[flag] !== undefined) throw new UsageError(`option --${flag} given twice`);
+    let value: string | undefined;
+    if (eq >= 0) value = arg.slice(eq + 1);
+    else if (i + 1 < rest.length && !rest[i + 1].startsWith('--')) value = rest[++i];
+    if (value === undefined || value === '') throw new UsageError(`option --${flag} needs a value`);
+    values[flag] = value;
+  }
+
+  if (positionals.length === 0) throw new UsageError('missing input: expected "analyze <windows.csv>"');
+  if (positionals.length > 1) throw new UsageError(`expected one input file, got ${positionals.length}: ${positionals.join(' ')}`);
+  if (values.out === undefined) throw new UsageError('missing option --out <dir>');
+  return {
+    command: 'analyze',
+    input: positionals[0],
+    out: values.out,
+    k: integerOption('k', values.k, DEFAULT_ANALYSIS_PARAMS.k, 2),
+    seed: integerOption('seed', values.seed, DEFAULT_ANALYSIS_PARAMS.seed, 0),
+    restarts: integerOption('restarts', values.restarts, DEFAULT_ANALYSIS_PARAMS.restarts, 1),
+    progress: progressOption(values.progress),
+  };
+}
+
+function integerOption(name: string, text: string | undefined, fallback: number, min: number): number {
+  if (text === undefined) return fallback;
+  const value = /^[+]?\d+$/.test(text) ? Number(text) : NaN;
+  if (!Number.isSafeInteger(value) || value < min || (name === 'seed' && value > 0xffffffff)) {
+    const range = name === 'seed' ? 'an integer from 0 to 4294967295' : `an integer >= ${min}`;
+    throw new UsageError(`invalid --${name} "${text}": expected ${range}`);
+  }
+  return value;
+}
+
+function progressOption(text: string | undefined): ProgressMode {
+  if (text === undefined) return 'auto';
+  if (!(PROGRESS_MODES as readonly string[]).includes(text)) {
+    throw new UsageError(`invalid --progress "${text}": expected one of ${PROGRESS_MODES.join(', ')}`);
+  }
+  return text as ProgressMode;
+}

@@ -1,0 +1,30 @@
+import type { AnalysisResult } from '../analysis.types';
+import type { Roles } from '../table/roles.types';
+import type { Table } from '../table/table';
+import { formatNumber, toCsv } from './csv';
+import { windowColumns } from './window-columns';
+
+export const MAP_CSV_HEADER = ['id', 'subject', 'start', 'end', 'x', 'y', 'cluster', 'confidence'];
+
+/**
+ * The CLI's per-window table: identity columns, map coordinates, cluster index (0-based) and
+ * confidence. Numbers are formatted deterministically, so the same run gives the same bytes.
+ */
+export function mapCsv(args: { table: Table; roles: Roles; result: AnalysisResult }): string {
+  const { table, roles, result } = args;
+  const w = windowColumns(table, roles);
+  const rows: (string | number)[][] = new Array(table.nRows);
+  for (let i = 0; i < table.nRows; i++) {
+    rows[i] = [
+      w.id(i),
+      w.subject(i),
+      w.start(i),
+      w.end(i),
+      formatNumber(result.coords[2 * i]),
+      formatNumber(result.coords[2 * i + 1]),
+      String(result.labels[i]),
+      formatNumber(result.confidence[i], 4),
+    ];
+  }
+  return toCsv(MAP_CSV_HEADER, rows);
+}

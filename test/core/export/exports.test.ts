@@ -1,0 +1,132 @@
+import { describe, expect, it } from 'vitest';
+import type { AnalysisParams, AnalysisResult } from '../../../src/core/analysis.types';
+import { CAUTIONS } from '../../../src/core/cautions';
+import { clusterComposition } from '../../../src/core/export/cluster-composition';
+import { mapCsv } from '../../../src/core/export/map-csv';
+import { buildProvenance } from '../../../src/core/export/provenance';
+import { weakLabelsCsv } from '../../../src/core/export/weak-labels';
+import type { Roles } from '../../../src/core/table/roles.types';
+import type { Column, Table } from '../../../src/core/table/table';
+
+function text(name: string, values: string[]): Column {
+  const dictionary = [...new Set(values.filter((v) => v !== ''))];
+  return { kind: 'categorical', name, dictionary, codes: Int32Array.from(values, (v) => (v === '' ? -1 : dictionary.indexOf(v))) };
+}
+function num(name: string, values: number[]): Column {
+  return { kind: 'numeric', name, values: Float64Array.from(values) };
+}
+
+const table: Table = {
+  fileName: 'w.csv',
+  nRows: 3,
+  columns: [
+    text('window_id', ['a1', 'a,2', 'a"3']),
+    text('pid', ['S01', 'S01', 'S02']),
+    num('t0', [0, 5, 1700000000.25]),
+    num('dur', [5, 5, 0.5]),
+    num('acc_x_mean', [0.1, 0.2, 0.3]),
+  ],
+};
+const roles: Roles = [
+  { name: 'window_id', role: 'id', evidence: '' },
+  { name: 'pid', role: 'subject', evidence: '' },
+  { name: 't0', role: 'start', evidence: '' },
+  { name: 'dur', role: 'duration', evidence: '' },
+  { name: 'acc_x_mean', role: 'feature', evidence: '' },
+];
+const params: AnalysisParams = { k: 2, seed: 42, restarts: 3, maxIterations: 100, silhouetteSample: 2000 };
+const result: AnalysisResult = {
+  recipe: [{ step: 'zscore', params: {}, effect: { features: 1 } }],
+  embed: { method: 'pca', components: 2, explainedVarianceRatio: [0.9, 0.1] },
+  coords: Float32Array.from([0.5, -0.25, 1 / 3, 2, -0, 1e-9]),
+  cluster: { method: 'kmeans', k: 2, restarts: 3, maxIterations: 100, init: 'k-means++', iterations: 4, inertia: 1.5, converged: true },
+  labels: Int32Array.from([0, 0, 1]),
+  confidence: Float32Array.from([0.75, 0.123456, 1]),
+  centroids: Float64Array.from([0.15, 0.3]),
+  sizes: Int32Array.from([2, 1]),
+  metrics: { silhouette: 0.5, silhouetteSampleSize: 3 },
+};
+
+describe('weakLabelsCsv({ table, roles, result, clusterNames })', () => {
+  it('writes the weak-label columns from the roles, blank where a role has no column', () => {
+    const csv = weakLabelsCsv({ table, roles, result, clusterNames: ['walking'] });
+    expect(csv.split('\n')).toEqual([
+      'window_id,subject,session,start,end,cluster,class_name,confidence',
+      'a1,S01,,0,5,0,walking,0.75',
+      // RFC 4180 §2 rules 6-7: the comma and the quote force quoting, quotes doubled;
+      // confidence to 4 significant digits.
+      '"a,2",S01,,5,10,0,walking,0.1235',
+      // end = start + duration, with enough digits for epoch seconds; cluster 1 is an unnamed candidate.
+      '"a""3",S02,,1700000000.25,1700000000.75,1,,1',
+      '',
+    ]);
+  });
+});
+
+describe('mapCsv({ table, roles, result })', () => {
+  it('writes id, subject, start, end, map coordinates, cluster and confidence', () => {
+    const lines = mapCsv({ table, roles, result }).split('\n');
+    expect(lines[0]).toBe('id,subject,start,end,x,y,cluster,confidence');
+    expect(lines[1]).toBe('a1,S01,0,5,0.5,-0.25,0,0.75');
+    // Float32 1/3 printed to 7 significant digits; -0 as 0; confidence to 4 digits.
+    expect(lines[2]).toBe('"a,2",S01,5,10,0.3333333,2,0,0.1235');
+    expect(lines[3]).toBe('"a""3",S02,1700000000.25,1700000000.75,0,1e-9,1,1');
+  });
+
+  it('uses the row index as id when no column has the id role', () => {
+    const noId = roles.filter((r) => r.role !== 'id');
+    const lines = mapCsv({ table, roles: noId, result }).split('\n');
+    expect(lines.slice(1, 4).map((l) => l.split(',')[0])).toEqual(['0', '1', '2']);
+  });
+});
+
+describe('clusterComposition(labels, k, subject)', () => {
+  it('counts windows per subject in each cluster, top subject first', () => {
+    const subject = text('pid', ['S1', 'S1', 'S2', 'S2', 'S2', 'S3', 'S3']);
+    const c = clusterComposition(Int32Array.from([0, 0, 0, 1, 1, 1, 2]), 3, subject);
+    expect(c[0]).toMatchObject({ id: 0, size: 3, topSubject: 'S1', subjects: 2, bySubject: [{ subject: 'S1', windows: 2 }, { subject: 'S2', windows: 1 }] });
+    expect(c[0].topSubjectShare).toBeCloseTo(2 / 3, 12);
+    // exp(entropy) of shares (2/3, 1/3): exp(-(2/3 ln 2/3 + 1/3 ln 1/3)) = 1.88988 (computed by hand).
+    expect(c[0].effectiveSubjects).toBeCloseTo(1.8898816, 6);
+    expect(c[1]).toMatchObject({ size: 3, topSubject: 'S2', topSubjectShare: 0.5 + 1 / 6, subjects: 2 });
+    expect(c[2]).toMatchObject({ size: 1, topSubject: 'S3', topSubjectShare: 1, subjects: 1, effectiveSubjects: 1 });
+  });
+
+  it('reports an empty cluster as size 0 and counts windows without a subject column under ""', () => {
+    const c = clusterComposition(Int32Array.from([0, 0]), 2, undefined);
+    expect(c[0]).toMatchObject({ size: 2, topSubject: '', topSubjectShare: 1, subjects: 1 });
+    expect(c[1]).toMatchObject({ size: 0, topSubject: '', topSubjectShare: 0, subjects: 0, effectiveSubjects: 0 });
+  });
+});
+
+describe('buildProvenance(...)', () => {
+  it('records input hash, roles, recipe, algorithms with parameters and seed, version, time and cautions', () => {
+    const p = buildProvenance({
+      input: { fileName: 'w.csv', sha256: 'ab'.repeat(32), rows: 3, features: 1 },
+      roles, params, result, clusterNames: ['walking'], appVersion: '0.1.0', createdAt: '2025-01-02T03:04:05.000Z',
+    });
+    expect(p).toMatchObject({
+      app: { name: 'Gleaner', version: '0.1.0' },
+      createdAt: '2025-01-02T03:04:05.000Z',
+      input: { fileName: 'w.csv', sha256: 'ab'.repeat(32), rows: 3, features: 1 },
+      recipe: [{ step: 'zscore', params: {}, effect: { features: 1 } }],
+      embed: { method: 'pca', components: 2, seed: 42 },
+      cluster: { method: 'kmeans', k: 2, restarts: 3, init: 'k-means++', maxIterations: 100, seed: 42 },
+      seed: 42,
+      clusters: [{ id: 0, size: 2, className: 'walking' }, { id: 1, size: 1, className: '' }],
+      cautions: CAUTIONS,
+    });
+    expect(p.roles).toContainEqual({ column: 'pid', role: 'subject' });
+    // JSON-ready: survives a round trip unchanged.
+    expect(JSON.parse(JSON.stringify(p))).toEqual(p);
+  });
+});
+
+describe('CAUTIONS', () => {
+  it('carries the design cautions (DESIGN.md §6): research aid, not diagnosis; ethics and privacy; data stays local', () => {
+    const all = CAUTIONS.join(' ');
+    expect(all).toMatch(/research aids, not clinical findings or diagnoses/);
+    expect(all).toMatch(/ethics approval, consent terms and local privacy law/);
+    expect(all).toMatch(/on this machine/);
+  });
+});
