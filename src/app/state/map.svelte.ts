@@ -1,0 +1,20 @@
+import type { MapView } from '../map/view';
+
+export type ColourBy = 'cluster' | 'subject';
+export type MapTool = 'pan' | 'box' | 'lasso';
+
+/** What the Map shows and how: colouring, the active tool, and what was last drawn. */
+export class MapState {
+  colourBy = $state<ColourBy>('cluster');
+  tool = $state<MapTool>('pan');
+  /** Set after a new run: the Map fits the new points into view on its next draw. */
+  fitNext = $state(false);
+  /** The user zoomed or panned since the last fit; until then a resize refits the view. */
+  userMoved = false;
+  /** The last drawn frame, for the status line and the test hook. */
+  view = $state.raw<MapView | null>(null);
+  pointsDrawn = $state(0);
+  clustersDrawn = $state(0);
+  /** The canvas element, for converting map positions to page positions. */
+  canvas = $state.raw<HTMLCanvasElement | null>(null);
+}

@@ -1,0 +1,102 @@
+/**
+ * Starts the built renderer on a loopback server and a headless Chromium on it, for the
+ * end-to-end tests. Builds dist/renderer first when it is missing (npm test builds it anyway).
+ */
+import { execFileSync } from 'node:child_process';
+import { existsSync, mkdirSync, mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join, resolve } from 'node:path';
+import { pathToFileURL } from 'node:url';
+import { chromium, type BrowserContext, type Page } from 'playwright-core';
+
+export const ROOT = resolve(import.meta.dirname, '../..');
+export const OUTPUT = join(ROOT, 'test-output');
+
+interface Served {
+  url: string;
+  close: () => Promise<void>;
+}
+type ServeApp = (o: { port?: number; root?: string; demoDir?: string }) => Promise<Served>;
+
+export interface Harness {
+  page: Page;
+  context: BrowserContext;
+  url: string;
+  /** A fresh temporary folder for files the test writes. */
+  tempDir: string;
+  /** Uncaught page errors seen so far (a working app has none). */
+  pageErrors: string[];
+  close(): Promise<void>;
+}
+
+export async function startHarness(): Promise<Harness> {
+  if (!existsSync(join(ROOT, 'dist/renderer/index.html'))) {
+    execFileSync('npx', ['vite', 'build'], { cwd: ROOT, stdio: 'inherit' });
+  }
+  mkdirSync(OUTPUT, { recursive: true });
+  // scripts/serve.mjs is plain JavaScript without type declarations: load it by URL.
+  const serveModule = pathToFileURL(join(ROOT, 'scripts/serve.mjs')).href;
+  const { serveApp } = (await import(serveModule)) as { serveApp: ServeApp };
+  const server = await serveApp({ port: 0, root: join(ROOT, 'dist/renderer'), demoDir: join(ROOT, 'demo-data') });
+  const tempDir = mkdtempSync(join(tmpdir(), 'gleaner-e2e-'));
+  const context = await chromium.launchPersistentContext(join(tempDir, 'profile'), {
+    executablePath: '/usr/bin/chromium',
+    headless: true,
+    acceptDownloads: true,
+    viewport: { width: 1400, height: 900 },
+    args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+  });
+  const page = context.pages()[0] ?? (await context.newPage());
+  const pageErrors: string[] = [];
+  page.on('pageerror', (err) => pageErrors.push(err.message));
+  return {
+    page,
+    context,
+    url: server.url,
+    tempDir,
+    pageErrors,
+    async close() {
+      await context.close();
+      await server.close();
+      rmSync(tempDir, { recursive: true, force: true });
+    },
+  };
+}
+
+/** Opens a file through the app's Open button and the browser's file chooser. */
+export async function openThroughChooser(page: Page, path: string): Promise<void> {
+  const [chooser] = await Promise.all([
+    page.waitForEvent('filechooser'),
+    page.getByRole('button', { name: 'Open…' }).click(),
+  ]);
+  await chooser.setFiles(path);
+}
+
+/** The test hook's values (see src/app/lib/test-hook.ts). */
+export interface HookState {
+  pointsDrawn: number;
+  clustersDrawn: number;
+  windows: number;
+  selectionSize: number;
+  runCount: number;
+  busy: boolean;
+}
+
+export function hookState(page: Page): Promise<HookState> {
+  return page.evaluate(() => {
+    const h = (window as unknown as { __gleaner: HookState }).__gleaner;
+    return { pointsDrawn: h.pointsDrawn, clustersDrawn: h.clustersDrawn, windows: h.windows, selectionSize: h.selectionSize, runCount: h.runCount, busy: h.busy };
+  });
+}
+
+/** Waits until the given number of runs has completed (and nothing is running). */
+export async function waitForRuns(page: Page, runs: number, timeout = 120_000): Promise<void> {
+  await page.waitForFunction(
+    (n) => {
+      const h = (window as unknown as { __gleaner: HookState }).__gleaner;
+      return h.runCount >= n && !h.busy && h.pointsDrawn > 0;
+    },
+    runs,
+    { timeout, polling: 100 },
+  );
+}
