@@ -1,0 +1,158 @@
+import { OptionError } from '../errors';
+import { ROLES, type ColumnRole, type Role, type RoleOverrides, type Roles } from './roles.types';
+import type { CategoricalColumn, Column, NumericColumn, Table } from './table';
+
+/** Words in a column name that suggest a role (matched against the name's words). */
+const NAME_WORDS: [Role, readonly string[]][] = [
+  ['subject', ['subject', 'subj', 'participant', 'pid', 'user', 'patient', 'person', 'volunteer', 'wearer']],
+  ['session', ['session', 'visit', 'recording']],
+  ['start', ['start', 't0', 'begin', 'onset', 'timestamp']],
+  ['end', ['end', 'stop', 't1']],
+  ['duration', ['duration', 'dur']],
+  ['label', ['label', 'labels', 'activity', 'class', 'annotation', 'target', 'truth', 'behaviour', 'behavior']],
+  ['id', ['id', 'window', 'win', 'uuid', 'idx']],
+  ['metadata', ['device', 'placement', 'site', 'group', 'location', 'sensor', 'lab', 'cohort', 'condition', 'sex', 'gender', 'environment']],
+];
+
+/** A numeric column with at most this many distinct values may be a label or metadata code. */
+const MAX_CODES = 20;
+
+/** Roles at most one column may hold; a second candidate falls back to a general role. */
+const SINGULAR: ReadonlySet<Role> = new Set(['id', 'subject', 'session', 'start', 'end', 'duration']);
+
+/** Splits "windowStartS" / "t_start" / "Subject ID" into lower-case words. */
+export function nameWords(name: string): string[] {
+  return name
+    .replace(/([a-z0-9])([A-Z])/g, '$1 $2')
+    .toLowerCase()
+    .split(/[^a-z0-9]+/)
+    .filter((w) => w !== '');
+}
+
+/** The role a column's name suggests, if any (earlier entries in NAME_WORDS win). */
+export function roleFromName(name: string): Role | undefined {
+  const words = nameWords(name);
+  for (const [role, list] of NAME_WORDS) if (words.some((w) => list.includes(w))) return role;
+  return undefined;
+}
+
+interface Profile {
+  missing: number;
+  distinct: number;
+  /** Number of runs of equal consecutive non-missing values. */
+  runs: number;
+}
+
+function profile(column: Column, nRows: number): Profile {
+  let missing = 0;
+  let runs = 0;
+  let prev = NaN;
+  let prevMissing = true;
+  const seen = new Set<number>();
+  for (let r = 0; r < nRows; r++) {
+    const v = column.kind === 'numeric' ? column.values[r] : column.codes[r];
+    const isMissing = column.kind === 'numeric' ? Number.isNaN(v) : v < 0;
+    if (isMissing) {
+      missing++;
+      prevMissing = true;
+      continue;
+    }
+    if (prevMissing || v !== prev) runs++;
+    prev = v;
+    prevMissing = false;
+    seen.add(v);
+  }
+  return { missing, distinct: seen.size, runs };
+}
+
+function describe(column: Column, p: Profile, nRows: number): string {
+  const kind = column.kind === 'numeric' ? 'numeric' : 'text';
+  const parts = [`${p.distinct} distinct ${kind} value${p.distinct === 1 ? '' : 's'}`];
+  if (p.distinct > 1 && p.distinct < nRows && p.runs <= 2 * p.distinct) parts[0] += ', in runs';
+  if (p.distinct === nRows - p.missing && p.distinct > 1) parts[0] += ', all unique';
+  if (p.missing > 0) parts.push(`${Math.round((100 * p.missing) / nRows)}% missing`);
+  return parts.join('; ');
+}
+
+function inferOne(column: Column, nRows: number, taken: Set<Role>): ColumnRole {
+  const p = profile(column, nRows);
+  const facts = describe(column, p, nRows);
+  const named = roleFromName(column.name);
+  const free = (r: Role) => !(SINGULAR.has(r) && taken.has(r));
+  const say = (role: Role, why: string): ColumnRole => {
+    if (SINGULAR.has(role)) taken.add(role);
+    return { name: column.name, role, evidence: why ? `${why}; ${facts}` : facts };
+  };
+  const present = nRows - p.missing;
+  if (present === 0) return say('ignore', 'no values');
+  const unique = p.distinct === present && present > 1;
+  const repeated = p.distinct < present;
+
+  if (named && free(named)) {
+    const byName = `name "${column.name}"`;
+    switch (named) {
+      case 'id':
+        if (unique) return say('id', byName);
+        break;
+      case 'subject':
+      case 'session':
+        if (repeated || column.kind === 'categorical') return say(named, byName);
+        break;
+      case 'start':
+      case 'end':
+      case 'duration':
+        if (column.kind === 'numeric' || named !== 'duration') return say(named, `${byName}, time`);
+        break;
+      case 'label':
+      case 'metadata':
+        // A numeric column only by name when it holds a few codes, not a measurement.
+        if (column.kind === 'categorical' || p.distinct <= MAX_CODES) return say(named, byName);
+        break;
+    }
+  }
+  if (column.kind === 'categorical') return inferText(column, p, present, unique, free, say);
+  return inferNumber(column, p, unique, free, say);
+}
+
+function inferText(
+  _c: CategoricalColumn, p: Profile, present: number, unique: boolean,
+  free: (r: Role) => boolean, say: (r: Role, why: string) => ColumnRole,
+): ColumnRole {
+  if (unique && free('id')) return say('id', 'text, one value per row');
+  if (p.missing > present) return say('label', 'text, mostly missing');
+  return say('metadata', 'text');
+}
+
+function inferNumber(
+  c: NumericColumn, _p: Profile, unique: boolean,
+  free: (r: Role) => boolean, say: (r: Role, why: string) => ColumnRole,
+): ColumnRole {
+  if (unique && free('id') && isCounter(c.values)) return say('id', 'integers counting up by 1');
+  return say('feature', 'numeric');
+}
+
+/** True when the values are consecutive integers 0,1,2,... or 1,2,3,... (a row counter). */
+function isCounter(v: Float64Array): boolean {
+  if (v.length < 2 || (v[0] !== 0 && v[0] !== 1)) return false;
+  for (let i = 1; i < v.length; i++) if (v[i] !== v[i - 1] + 1) return false;
+  return true;
+}
+
+/**
+ * Infers each column's role from its name and content, with a short evidence string. User
+ * overrides (column name → role) win and are applied first, so an inferred column never takes
+ * a one-per-table role (id, subject, session, start, end, duration) an override already holds.
+ */
+export function inferRoles(table: Table, overrides: RoleOverrides = {}): Roles {
+  const names = new Set(table.columns.map((c) => c.name));
+  for (const [name, role] of Object.entries(overrides)) {
+    if (!names.has(name)) throw new OptionError('role override column', name, `a column of ${table.fileName}`);
+    if (!ROLES.includes(role)) throw new OptionError(`role for "${name}"`, role, `one of ${ROLES.join(', ')}`);
+  }
+  const taken = new Set<Role>(Object.values(overrides).filter((r) => SINGULAR.has(r)));
+  return table.columns.map((column) => {
+    const role = overrides[column.name];
+    if (role !== undefined) return { name: column.name, role, evidence: 'set by you' };
+    return inferOne(column, table.nRows, taken);
+  });
+}
