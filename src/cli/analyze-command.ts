@@ -2,7 +2,7 @@ import { createHash } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, realpathSync, statSync } from 'node:fs';
 import { basename, join, resolve } from 'node:path';
 import { DEFAULT_ANALYSIS_PARAMS, type AnalysisParams, type AnalysisResult } from '../core/analysis.types';
-import { InputError, OptionError } from '../core/errors';
+import { OptionError } from '../core/errors';
 import { clusterComposition } from '../core/export/cluster-composition';
 import { mapCsv } from '../core/export/map-csv';
 import { columnWithRole } from '../core/export/window-columns';
@@ -44,9 +44,6 @@ export async function analyzeCommand(opts: AnalyzeOptions, deps: AnalyzeDeps): P
   const parsePayload: ParseJob = { fileName, bytes };
   const { table, roles } = await runJob<ParseResult>(deps, 'parse', parsePayload, [bytes.buffer], 'reading');
   const matrix = featureMatrix(table, roles);
-  if (matrix.n < 2) {
-    throw new InputError({ file: fileName, expected: 'at least 2 windows (data rows) to cluster', found: `${matrix.n} window` });
-  }
   if (opts.k > matrix.n) {
     throw new OptionError('--k', opts.k, `at most the number of windows (${matrix.n})`);
   }

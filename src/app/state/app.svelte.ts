@@ -3,7 +3,7 @@ import type { Host, OpenedFile } from '../../host/host';
 import type { JobClient, RunningJob } from '../../worker/client';
 import type { ParseResult } from '../../worker/jobs';
 import { version } from '../../../package.json';
-import { clusterableMatrix } from '../lib/checks';
+import { featureMatrix } from '../../core/table/matrix';
 import { isoNow } from '../lib/clock';
 import { describeError, isCancelled } from '../lib/errors';
 import { weakLabelFiles } from '../lib/export-files';
@@ -70,7 +70,7 @@ export class AppState {
       this.current = job;
       const { table, roles } = await job.result;
       if (this.current !== job) return false; // superseded by a newer action
-      clusterableMatrix(table, roles); // the same check Run makes: fail now, not later
+      featureMatrix(table, roles); // the same check Run makes: fail now, not later
       this.study.load({ fileName: file.name, sha256, bytes: file.bytes.length }, table, roles);
       this.selection.clear();
       const features = roles.filter((r) => r.role === 'feature').length;
@@ -95,7 +95,7 @@ export class AppState {
     const roles = $state.snapshot(this.study.roles);
     try {
       params = this.params.toParams();
-      matrix = clusterableMatrix(table, roles);
+      matrix = featureMatrix(table, roles);
     } catch (err) {
       this.status.fail('Cannot run', describeError(err, source.fileName), 'Fix the roles or parameters, then Run again.');
       return;

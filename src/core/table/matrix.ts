@@ -3,10 +3,13 @@ import { InputError } from '../errors';
 import type { Roles } from './roles.types';
 import type { NumericColumn, Table } from './table';
 
+/** Fewest windows an analysis can cluster. */
+export const MIN_WINDOWS = 2;
+
 /**
  * Gathers the feature columns (role "feature", in table order) into a row-major matrix; missing
  * values stay NaN for the recipe to handle. Fails when there is no feature column, when a
- * feature column is text, or when one has no value at all.
+ * feature column is text, when one has no value at all, or when there are fewer than MIN_WINDOWS windows.
  */
 export function featureMatrix(table: Table, roles: Roles): FeatureMatrix {
   const byName = new Map(table.columns.map((c) => [c.name, c]));
@@ -37,8 +40,16 @@ export function featureMatrix(table: Table, roles: Roles): FeatureMatrix {
       data[i * d + j] = x;
     }
     if (present === 0) {
-      throw new InputError({ file: table.fileName, column: column.name, expected: 'at least one value in a feature column', found: 'only missing values' });
+      throw new InputError({
+        file: table.fileName,
+        column: column.name,
+        expected: 'at least one value in a feature column (give the column the role "ignore" to leave it out)',
+        found: 'only missing values',
+      });
     }
   });
+  if (n < MIN_WINDOWS) {
+    throw new InputError({ file: table.fileName, row: n + 1, expected: `at least ${MIN_WINDOWS} windows (data rows) to cluster`, found: `${n} window${n === 1 ? '' : 's'}` });
+  }
   return { data, n, d, featureNames: features.map((c) => c.name) };
 }

@@ -12,6 +12,7 @@ const NAME_WORDS: [Role, readonly string[]][] = [
   ['label', ['label', 'labels', 'activity', 'class', 'annotation', 'target', 'truth', 'behaviour', 'behavior']],
   ['id', ['id', 'window', 'win', 'uuid', 'idx']],
   ['metadata', ['device', 'placement', 'site', 'group', 'location', 'sensor', 'lab', 'cohort', 'condition', 'sex', 'gender', 'environment']],
+  ['ignore', ['note', 'notes', 'comment', 'comments', 'remark', 'remarks', 'description']],
 ];
 
 /** A numeric column with at most this many distinct values may be a label or metadata code. */
@@ -84,7 +85,9 @@ function inferOne(column: Column, nRows: number, taken: Set<Role>): ColumnRole {
     return { name: column.name, role, evidence: why ? `${why}; ${facts}` : facts };
   };
   const present = nRows - p.missing;
-  if (present === 0) return say('ignore', 'no values');
+  // An empty column is kept as a feature (unless its name says otherwise) so that featureMatrix
+  // reports it by name rather than the analysis silently running without it.
+  if (present === 0) return say(named && free(named) ? named : 'feature', 'no values at all');
   const unique = p.distinct === present && present > 1;
   const repeated = p.distinct < present;
 
@@ -108,6 +111,8 @@ function inferOne(column: Column, nRows: number, taken: Set<Role>): ColumnRole {
         // A numeric column only by name when it holds a few codes, not a measurement.
         if (column.kind === 'categorical' || p.distinct <= MAX_CODES) return say(named, byName);
         break;
+      case 'ignore':
+        return say('ignore', `${byName}, free text`);
     }
   }
   if (column.kind === 'categorical') return inferText(column, p, present, unique, free, say);

@@ -38,6 +38,10 @@ describe('inferRoles(table, overrides)', () => {
       ['activity', 'label'],
       ['notes', 'ignore'],
     ]);
+    // Free text is ignored by its name; an empty column without such a name stays a feature so
+    // that the analysis reports it by name instead of running silently without it.
+    const empty = parseCsv(new TextEncoder().encode('id,x,y\na,1,\nb,2,\n'), 'e.csv');
+    expect(inferRoles(empty).map((r) => r.role)).toEqual(['id', 'feature', 'feature']);
     expect(roles[1].evidence).toContain('2 distinct text values, in runs');
     expect(roles[8].evidence).toContain('67% missing');
     for (const r of roles) expect(r.evidence.length).toBeGreaterThan(0);
