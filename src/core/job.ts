@@ -11,6 +11,14 @@ export interface JobContext {
    * when it was cancelled. Drivers yield to their event loop here so cancel messages get in.
    */
   checkpoint(): Promise<void>;
+  /**
+   * Offer an intermediate result (for example the map layout so far) to whoever watches the job.
+   * Drivers may drop offers to keep a few per second; the value must not be mutated afterwards
+   * (pass a copy). Optional: kernels call it as `ctx.partial?.(...)`.
+   */
+  partial?(value: unknown): void;
+  /** Whether a partial offered now would be delivered (lets kernels skip copying otherwise). */
+  wantsPartial?(): boolean;
 }
 
 /** A context for tests and synchronous callers: no progress, never cancelled. */

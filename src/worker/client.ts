@@ -20,17 +20,21 @@ export class JobClient {
   private nextId = 1;
   private readonly pending = new Map<
     number,
-    { resolve: (v: unknown) => void; reject: (e: Error) => void; onProgress?: (p: Progress) => void }
+    { resolve: (v: unknown) => void; reject: (e: Error) => void; onProgress?: (p: Progress) => void; onPartial?: (value: unknown) => void }
   >();
 
   constructor(private readonly port: MessagePortLike<FromHost, ToHost>) {
     port.listen((msg) => this.receive(msg));
   }
 
-  run<R>(job: string, payload: unknown, options: { onProgress?: (p: Progress) => void; transfer?: Transferable[] } = {}): RunningJob<R> {
+  run<R>(
+    job: string,
+    payload: unknown,
+    options: { onProgress?: (p: Progress) => void; onPartial?: (value: unknown) => void; transfer?: Transferable[] } = {},
+  ): RunningJob<R> {
     const id = this.nextId++;
     const result = new Promise<R>((resolve, reject) => {
-      this.pending.set(id, { resolve: resolve as (v: unknown) => void, reject, onProgress: options.onProgress });
+      this.pending.set(id, { resolve: resolve as (v: unknown) => void, reject, onProgress: options.onProgress, onPartial: options.onPartial });
     });
     this.port.post({ type: 'run', id, job, payload }, options.transfer);
     return { id, result, cancel: () => this.port.post({ type: 'cancel', id }) };
@@ -48,6 +52,9 @@ export class JobClient {
     switch (msg.type) {
       case 'progress':
         p.onProgress?.({ stage: msg.stage, fraction: msg.fraction });
+        return;
+      case 'partial':
+        p.onPartial?.(msg.value);
         return;
       case 'done':
         this.pending.delete(msg.id);

@@ -7,6 +7,8 @@ export type JobHandler = (payload: never, ctx: JobContext) => Promise<unknown>;
 
 /** Progress messages are sent at most this often (ms); the first and last always go. */
 const PROGRESS_INTERVAL_MS = 100;
+/** Intermediate results are sent at most this often (ms): a few redraws per second. */
+const PARTIAL_INTERVAL_MS = 250;
 /** Work between checkpoints longer than this yields to the event loop so cancel messages get in. */
 const SLICE_MS = 30;
 
@@ -36,6 +38,7 @@ export function serveJobs(
 
   async function runOne(id: number, handler: JobHandler, payload: unknown): Promise<void> {
     let lastPost = -Infinity;
+    let lastPartial = -Infinity;
     let sliceStart = now();
     const ctx: JobContext = {
       progress(stage, fraction) {
@@ -44,6 +47,13 @@ export function serveJobs(
           lastPost = t;
           port.post({ type: 'progress', id, stage, fraction: Math.max(0, Math.min(1, fraction)) });
         }
+      },
+      wantsPartial: () => now() - lastPartial >= PARTIAL_INTERVAL_MS,
+      partial(value) {
+        const t = now();
+        if (t - lastPartial < PARTIAL_INTERVAL_MS) return;
+        lastPartial = t;
+        port.post({ type: 'partial', id, value }, transferablesOf(value));
       },
       async checkpoint() {
         if (now() - sliceStart >= SLICE_MS) {

@@ -16,6 +16,7 @@ export type ToHost =
 
 export type FromHost =
   | { type: 'progress'; id: number; stage: string; fraction: number }
+  | { type: 'partial'; id: number; value: unknown }
   | { type: 'done'; id: number; result: unknown }
   | { type: 'error'; id: number; error: ErrorPayload }
   | { type: 'cancelled'; id: number };

@@ -32,6 +32,18 @@ const testJobs = {
     for (const b of payload.bytes) s += b;
     return { sum: s };
   },
+  /** Offers a partial layout on every step for ~600 ms; the host keeps a few per second. */
+  async layouts(_payload: unknown, ctx: JobContext) {
+    const t0 = performance.now();
+    let offered = 0;
+    while (performance.now() - t0 < 600) {
+      offered++;
+      if (ctx.wantsPartial?.()) ctx.partial?.({ coords: new Float32Array([offered, offered]) });
+      await new Promise((r) => setTimeout(r, 5));
+      await ctx.checkpoint();
+    }
+    return { offered };
+  },
   async badInput() {
     throw new InputError({ file: 'w.csv', row: 3, column: 'acc_x_mean', expected: 'a number', found: 'abc' });
   },
@@ -149,5 +161,17 @@ describe('serveJobs + JobClient over a Node MessageChannel', () => {
   it('rejects a job name the host does not serve', async () => {
     const client = setup();
     await expect(client.run('noSuchJob', {}).result).rejects.toThrow('unknown job "noSuchJob"');
+  });
+
+  it('delivers a few partial results per second, typed arrays intact, before the result', async () => {
+    const client = setup();
+    const partials: Float32Array[] = [];
+    const job = client.run<{ offered: number }>('layouts', {}, { onPartial: (v) => partials.push((v as { coords: Float32Array }).coords) });
+    const { offered } = await job.result;
+    // The host throttles to one partial per 250 ms: over ~600 ms that is 2 or 3, far fewer than offered.
+    expect(partials.length).toBeGreaterThanOrEqual(2);
+    expect(partials.length).toBeLessThanOrEqual(4);
+    expect(offered).toBeGreaterThan(partials.length * 5);
+    for (const p of partials) expect(p).toBeInstanceOf(Float32Array);
   });
 });
