@@ -9,6 +9,7 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { OptionError } from '../src/core/errors';
 import { seededRandom } from '../src/core/random';
+import { rawEdf } from './sim/edf';
 import { simulateVolunteer, type SimulatedRecording } from './sim/simulate';
 import { labelledWindows, rawCsv, truthCsv, windowsCsv, windowsOf, type WindowRow } from './sim/tables';
 import { makeVolunteer, VOLUNTEER_COUNT } from './sim/volunteers';
@@ -19,7 +20,7 @@ export const DEMO_DIR = dirname(fileURLToPath(import.meta.url));
 export interface GenerateOptions {
   /** Output folder (default: this folder). */
   outDir?: string;
-  /** Also write raw/Sxx.csv per volunteer. */
+  /** Also write raw/Sxx.csv and raw/Sxx.edf (EDF+ with activity annotations) per volunteer. */
   raw?: boolean;
   seed?: number;
 }
@@ -31,7 +32,7 @@ export interface GenerateSummary {
 }
 
 /** Write `text` to `path` atomically: a temporary file beside it, then a rename. */
-export function writeAtomic(path: string, text: string): void {
+export function writeAtomic(path: string, text: string | Uint8Array): void {
   const tmp = `${path}.${process.pid}.tmp`;
   writeFileSync(tmp, text);
   renameSync(tmp, path);
@@ -59,7 +60,9 @@ export function generateDemoStudy(options: GenerateOptions = {}): GenerateSummar
     if (options.raw) {
       const path = join(outDir, 'raw', `${rec.volunteer.id}.csv`);
       writeAtomic(path, rawCsv(rec));
-      files.push(path);
+      const edfPath = join(outDir, 'raw', `${rec.volunteer.id}.edf`);
+      writeAtomic(edfPath, rawEdf(rec));
+      files.push(path, edfPath);
     }
   }
   const labelled = labelledWindows(rows.length, seed + 7);

@@ -1,0 +1,148 @@
+import { readFileSync } from 'node:fs';
+import { basename } from 'node:path';
+import { InputError } from '../core/errors';
+import { isoFromEpoch } from '../core/raw/civil-time';
+import { openRawCsv } from '../core/raw/csv/read';
+import { openEdf, type EdfFile } from '../core/raw/edf/read';
+import { looksLikeEdf } from '../core/raw/open';
+import type { ByteSource } from '../core/raw/byte-source';
+import { parseCsv } from '../core/table/csv';
+import { inferRoles, roleFromName } from '../core/table/roles';
+import { cellText } from '../core/table/table';
+import { openFileSource } from './file-source';
+
+export const INSPECT_USAGE = `Usage: gleaner inspect <file>
+
+Prints a JSON summary of a windows table (columns and their roles, subjects, time range) or of a raw
+signal file: EDF/EDF+ (header fields; per signal label, units, ranges, sampling rate, number of
+samples; annotations) or a raw-signal CSV (time column, channels, rate, covered time).`;
+
+/** `gleaner inspect <file>`: returns the exit code (0 done, 1 bad input, 2 bad command line). */
+export async function runInspect(argv: readonly string[]): Promise<number> {
+  if (argv.includes('--help') || argv.includes('-h')) {
+    process.stdout.write(`${INSPECT_USAGE}\n`);
+    return 0;
+  }
+  const unknown = argv.find((a) => a.startsWith('-') && a !== '-');
+  if (unknown || argv.length !== 1) {
+    process.stderr.write(`gleaner: ${unknown ? `unknown option "${unknown}"` : 'expected one file: gleaner inspect <file>'} (see gleaner inspect --help)\n`);
+    return 2;
+  }
+  try {
+    const summary = await inspectFile(argv[0]);
+    process.stdout.write(`${JSON.stringify(summary, null, 2)}\n`);
+    return 0;
+  } catch (err) {
+    const sys = err as { code?: unknown };
+    const message = err instanceof InputError ? err.message : sys.code === 'ENOENT' ? `cannot open ${argv[0]}: no such file or folder` : sys.code === 'EISDIR' ? `cannot open ${argv[0]}: expected a file, found a folder` : `error: ${err instanceof Error ? err.message : String(err)}`;
+    process.stderr.write(`gleaner: ${message.replace(/\s*\n\s*/g, ' ')}\n`);
+    return 1;
+  }
+}
+
+/** The JSON summary of one file (see INSPECT_USAGE). */
+export async function inspectFile(path: string): Promise<object> {
+  const source = await openFileSource(path);
+  const fileName = basename(path);
+  try {
+    const head = await source.read(0, 4096);
+    if (looksLikeEdf(head)) return await edfSummary(await openEdf(source, fileName));
+    const header = new TextDecoder().decode(head).replace(/^\uFEFF/, '').split(/\r?\n/)[0];
+    const names = header.split(/[,;\t]/).map((c) => c.trim());
+    if (names.some((n) => roleFromName(n) === 'subject' || roleFromName(n) === 'id')) return windowsSummary(path, fileName);
+    return await rawCsvSummary(source, fileName);
+  } finally {
+    await source.close();
+  }
+}
+
+async function edfSummary(edf: EdfFile): Promise<object> {
+  const h = edf.header;
+  const first = edf.recordOnsets.length ? edf.recordOnsets[0] : 0;
+  const annotations = await edf.annotations();
+  return {
+    kind: 'edf',
+    file: edf.fileName,
+    format: h.format,
+    version: h.version,
+    patient: h.patient,
+    recording: h.recording,
+    startDate: `${h.start.year}-${pad(h.start.month)}-${pad(h.start.day)}`,
+    startTime: `${pad(h.start.hour)}:${pad(h.start.minute)}:${pad(h.start.second)}`,
+    start: isoFromEpoch((edf.startEpoch ?? 0) + first),
+    headerBytes: h.headerBytes,
+    reserved: h.reserved,
+    dataRecords: h.records,
+    recordDuration: h.recordDuration,
+    duration: h.records * h.recordDuration,
+    coverage: edf.coverage,
+    signals: h.signals.map((s) => ({
+      label: s.label,
+      transducer: s.transducer,
+      unit: s.unit,
+      physicalMin: s.physMin,
+      physicalMax: s.physMax,
+      digitalMin: s.digMin,
+      digitalMax: s.digMax,
+      prefilter: s.prefilter,
+      samplesPerRecord: s.samplesPerRecord,
+      rate: h.recordDuration > 0 ? s.samplesPerRecord / h.recordDuration : null,
+      samples: s.samplesPerRecord * h.records,
+      ...(s.annotation ? { annotationSignal: true } : {}),
+    })),
+    annotations: annotations.map((a) => ({ onset: a.onset, ...(a.duration !== undefined ? { duration: a.duration } : {}), text: a.text })),
+  };
+}
+
+async function rawCsvSummary(source: ByteSource, fileName: string): Promise<object> {
+  const csv = await openRawCsv(source, fileName);
+  const ix = csv.index;
+  const cov = csv.coverage;
+  return {
+    kind: 'raw-csv',
+    file: fileName,
+    timeColumn: ix.columns[ix.timeColumn],
+    timeFormat: ix.timeFormat,
+    start: ix.startEpoch !== null ? isoFromEpoch(ix.startEpoch) : null,
+    rows: ix.rows,
+    rate: ix.rate,
+    duration: cov.length ? cov[cov.length - 1].end - cov[0].start : 0,
+    gaps: Math.max(0, cov.length - 1),
+    coverage: cov,
+    channels: csv.channels.map((c) => ({ label: c.label, unit: c.unit, rate: c.rate })),
+  };
+}
+
+function windowsSummary(path: string, fileName: string): object {
+  const table = parseCsv(new Uint8Array(readFileSync(path)), fileName);
+  const roles = inferRoles(table);
+  const byRole = (role: string) => roles.findIndex((r) => r.role === role);
+  const distinct = (role: string) => {
+    const j = byRole(role);
+    if (j < 0) return null;
+    return new Set(Array.from({ length: table.nRows }, (_, r) => cellText(table.columns[j], r)).filter((v) => v !== '')).size;
+  };
+  const range = (role: string) => {
+    const c = table.columns[byRole(role)];
+    if (!c || c.kind !== 'numeric') return null;
+    let lo = Infinity;
+    let hi = -Infinity;
+    for (const v of c.values) if (!Number.isNaN(v)) { lo = Math.min(lo, v); hi = Math.max(hi, v); }
+    return lo <= hi ? [lo, hi] : null;
+  };
+  return {
+    kind: 'windows',
+    file: fileName,
+    rows: table.nRows,
+    subjects: distinct('subject'),
+    sessions: distinct('session'),
+    features: roles.filter((r) => r.role === 'feature').length,
+    start: range('start'),
+    end: range('end'),
+    columns: roles.map((r, j) => ({ name: r.name, role: r.role, type: table.columns[j].kind, evidence: r.evidence })),
+  };
+}
+
+function pad(n: number): string {
+  return String(n).padStart(2, '0');
+}

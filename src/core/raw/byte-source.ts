@@ -1,0 +1,52 @@
+/**
+ * Random-access bytes of one file. The browser supplies one over File.slice, Electron main and the
+ * CLI over a file handle, tests over an in-memory array. Readers ask only for the ranges they need.
+ */
+export interface ByteSource {
+  /** File size in bytes. */
+  readonly size: number;
+  /**
+   * The bytes in [offset, offset + length), clipped to the end of the file (a read past the end
+   * returns fewer bytes, never throws).
+   */
+  read(offset: number, length: number): Promise<Uint8Array>;
+}
+
+/** A ByteSource over bytes already in memory (tests, small files, drag and drop). */
+export function bytesSource(bytes: Uint8Array): ByteSource {
+  return {
+    size: bytes.length,
+    read: (offset, length) => Promise.resolve(bytes.subarray(Math.max(0, offset), Math.min(bytes.length, offset + length))),
+  };
+}
+
+/** A ByteSource that counts the bytes and calls passed through it (for tests and benchmarks). */
+export interface CountingSource extends ByteSource {
+  readonly bytesRead: number;
+  readonly reads: number;
+  reset(): void;
+}
+
+export function countingSource(inner: ByteSource): CountingSource {
+  let bytesRead = 0;
+  let reads = 0;
+  return {
+    size: inner.size,
+    get bytesRead() {
+      return bytesRead;
+    },
+    get reads() {
+      return reads;
+    },
+    reset() {
+      bytesRead = 0;
+      reads = 0;
+    },
+    async read(offset, length) {
+      const out = await inner.read(offset, length);
+      bytesRead += out.length;
+      reads++;
+      return out;
+    },
+  };
+}

@@ -1,0 +1,11 @@
+export { bytesSource, countingSource, type ByteSource, type CountingSource } from './byte-source';
+export { civilFromEpoch, epochFromCivil, isoFromEpoch, type CivilTime } from './civil-time';
+export { openRawCsv, type RawCsvFile } from './csv/read';
+export { indexRawCsv, type RawCsvIndex } from './csv/csv-index';
+export { openEdf, type EdfFile } from './edf/read';
+export { parseEdfHeader, type EdfHeader, type EdfSignalHeader } from './edf/header';
+export { encodeTal, parseTals, type EdfAnnotation } from './edf/tal';
+export { writeEdf, type EdfAnnotationInput, type EdfSignalInput, type EdfWriteInput } from './edf/write';
+export { linkWindows, linkWindowsOf, mapWindow, parseManifest, rawPathFor, toSourceTime, type LinkWindow, type ManifestEntry, type RawLinkSpec, type WindowLink } from './link';
+export { looksLikeEdf, openRawSource } from './open';
+export { readSpan, type ChannelSpan, type Coverage, type RawChannelInfo, type RawSource, type RawSpan } from './span.types';

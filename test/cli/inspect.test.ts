@@ -1,0 +1,61 @@
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { writeEdf } from '../../src/core/raw/edf/write';
+import { HAVE_REFERENCE, REFERENCE_EDF } from '../core/raw/reference-edf';
+import { hasStackTrace, runCli } from './run-cli';
+
+let dir = '';
+beforeAll(() => {
+  dir = mkdtempSync(join(tmpdir(), 'gleaner-inspect-'));
+  writeFileSync(join(dir, 'small.edf'), writeEdf({
+    patient: 'P01', recording: 'bench test', start: { year: 2026, month: 3, day: 2, hour: 9, minute: 0, second: 0 }, recordDuration: 1, plus: true,
+    signals: [{ label: 'acc_x', unit: 'g', physMin: -4, physMax: 4, digMin: -32768, digMax: 32767, samplesPerRecord: 50, samples: new Float64Array(150) }],
+    annotations: [{ onset: 1, duration: 2, text: 'walking' }],
+  }));
+  writeFileSync(join(dir, 'raw.csv'), 'time,acc\n0,1\n0.5,2\n1,3\n');
+  writeFileSync(join(dir, 'windows.csv'), 'window_id,subject,start,end,f1,f2\nw1,S01,0,5,1,2\nw2,S02,5,10,3,4\n');
+  writeFileSync(join(dir, 'broken.edf'), '0       ' + ' '.repeat(100));
+});
+afterAll(() => {
+  if (dir) rmSync(dir, { recursive: true, force: true });
+});
+
+describe('gleaner inspect <file>', () => {
+  it('prints an EDF+ summary: header fields, signals with units, ranges, rate, samples, and annotations', () => {
+    const r = runCli(['inspect', join(dir, 'small.edf')]);
+    expect(r.stderr).toBe('');
+    expect(r.status).toBe(0);
+    const s = JSON.parse(r.stdout);
+    expect(s).toMatchObject({ kind: 'edf', format: 'EDF+C', start: '2026-03-02T09:00:00Z', dataRecords: 3, recordDuration: 1 });
+    expect(s.signals[0]).toEqual({ label: 'acc_x', transducer: '', unit: 'g', physicalMin: -4, physicalMax: 4, digitalMin: -32768, digitalMax: 32767, prefilter: '', samplesPerRecord: 50, rate: 50, samples: 150 });
+    expect(s.annotations).toEqual([{ onset: 1, duration: 2, text: 'walking' }]);
+  });
+
+  it.skipIf(!HAVE_REFERENCE)('summarizes the reference file test_generator.edf (../shared/reference/edf; values from ../shared/reference/README.md, "EDF and EDF+")', () => {
+    const s = JSON.parse(runCli(['inspect', join(REFERENCE_EDF, 'test_generator.edf')]).stdout);
+    expect(s).toMatchObject({ format: 'EDF+C', headerBytes: 3328, dataRecords: 600, startDate: '2011-04-04', startTime: '12:57:02' });
+    expect(s.signals[0]).toMatchObject({ label: 'squarewave', unit: 'uV', rate: 200, samples: 120000 });
+    expect(s.annotations.map((a: { text: string }) => a.text)).toEqual(['Recording starts', 'Recording ends']);
+  });
+
+  it('prints a raw CSV summary and a windows table summary', () => {
+    const raw = JSON.parse(runCli(['inspect', join(dir, 'raw.csv')]).stdout);
+    expect(raw).toMatchObject({ kind: 'raw-csv', timeColumn: 'time', rows: 3, rate: 2, channels: [{ label: 'acc', unit: '', rate: 2 }] });
+    const win = JSON.parse(runCli(['inspect', join(dir, 'windows.csv')]).stdout);
+    expect(win).toMatchObject({ kind: 'windows', rows: 2, subjects: 2, features: 2 });
+    expect(win.columns.map((c: { role: string }) => c.role)).toEqual(['id', 'subject', 'start', 'end', 'feature', 'feature']);
+  });
+
+  it('fails with one line naming the file for a broken EDF, a missing file, and a bad command line', () => {
+    const broken = runCli(['inspect', join(dir, 'broken.edf')]);
+    expect(broken.status).toBe(1);
+    expect(broken.stderr).toMatch(/^gleaner: broken\.edf: expected .*truncated/);
+    expect(hasStackTrace(broken.stderr)).toBe(false);
+    const missing = runCli(['inspect', join(dir, 'nope.edf')]);
+    expect(missing.status).toBe(1);
+    expect(missing.stderr).toMatch(/cannot open .*nope\.edf: no such file/);
+    expect(runCli(['inspect']).status).toBe(2);
+  });
+});
