@@ -1,3 +1,5 @@
+import { boundRule, type BoundRule } from '../composition/bound-rule';
+import { composeColumn, type ColumnComposition } from '../composition/compose-column';
 import type { Column } from '../table/table';
 
 /** Who is in one cluster: the subject mix that shows whether a cluster marks behaviour or a person. */
@@ -12,50 +14,61 @@ export interface ClusterComposition {
   subjects: number;
   /** exp(Shannon entropy) of the subject shares: how many subjects the cluster "really" holds. */
   effectiveSubjects: number;
+  /** Shannon entropy of the subject shares / ln(subjects in the table): 1 = spread evenly over all. */
+  subjectEntropy: number;
+  /** Flagged by the subject-bound rule (see DEVELOPERS.md, "Subject-bound clusters"). */
+  subjectBound: boolean;
+  /** Why the cluster was or was not flagged, with the numbers the rule used. */
+  subjectBoundReason: string;
   /** Windows per subject, most first (ties by subject name), for tracing subject-bound clusters. */
   bySubject: { subject: string; windows: number }[];
+}
+
+/** The whole-table view of clusters against subjects, for summaries and the Mix view. */
+export interface SubjectComposition {
+  clusters: ClusterComposition[];
+  /** NMI between clusters and subjects (arithmetic-mean normalization): 0 = clusters ignore subjects. */
+  subjectNMI: number;
+  /** Cramér's V between clusters and subjects (NaN, written null, with one subject or one cluster). */
+  cramersV: number;
+  subjectChiSquare: ColumnComposition['chiSquare'];
+  /** exp(entropy) of the subjects over all windows: the reference the subject-bound rule uses. */
+  cohortEffectiveSubjects: number;
+  subjectBoundRule: BoundRule;
 }
 
 /**
  * Subject composition of each cluster. `subject` is the table's subject column (text or numeric);
  * without one, every window counts under the subject ''. Missing subject cells count under ''.
  */
-export function clusterComposition(labels: Int32Array, k: number, subject: Column | undefined): ClusterComposition[] {
-  const counts: Map<string, number>[] = Array.from({ length: k }, () => new Map());
-  for (let i = 0; i < labels.length; i++) {
-    const c = labels[i];
-    if (c < 0 || c >= k) continue;
-    const s = subjectText(subject, i);
-    counts[c].set(s, (counts[c].get(s) ?? 0) + 1);
-  }
-  return counts.map((m, id) => {
-    const bySubject = [...m.entries()]
-      .map(([s, windows]) => ({ subject: s, windows }))
-      .sort((a, b) => b.windows - a.windows || (a.subject < b.subject ? -1 : a.subject > b.subject ? 1 : 0));
-    const size = bySubject.reduce((acc, e) => acc + e.windows, 0);
-    let entropy = 0;
-    for (const e of bySubject) {
-      const p = e.windows / size;
-      entropy -= p * Math.log(p);
-    }
-    return {
-      id,
-      size,
-      topSubject: bySubject[0]?.subject ?? '',
-      topSubjectShare: size > 0 ? bySubject[0].windows / size : 0,
-      subjects: bySubject.length,
-      effectiveSubjects: size > 0 ? Math.exp(entropy) : 0,
-      bySubject,
-    };
-  });
+export function clusterComposition(
+  labels: Int32Array, k: number, subject: Column | undefined, rule: Partial<BoundRule> = {},
+): ClusterComposition[] {
+  return subjectComposition(labels, k, subject, rule).clusters;
 }
 
-function subjectText(column: Column | undefined, row: number): string {
-  if (!column) return '';
-  if (column.kind === 'numeric') {
-    const v = column.values[row];
-    return Number.isNaN(v) ? '' : String(v);
-  }
-  const code = column.codes[row];
-  return code < 0 ? '' : column.dictionary[code];
+/** Per-cluster subject composition plus the overall cluster–subject association. */
+export function subjectComposition(
+  labels: Int32Array, k: number, subject: Column | undefined, rule: Partial<BoundRule> = {},
+): SubjectComposition {
+  const c = composeColumn(labels, k, subject, boundRule(rule), 'subject');
+  return {
+    clusters: c.clusters.map((m) => ({
+      id: m.id,
+      size: m.size,
+      topSubject: m.top,
+      topSubjectShare: m.topShare,
+      subjects: m.values,
+      effectiveSubjects: m.effectiveValues,
+      subjectEntropy: m.entropy,
+      subjectBound: m.bound,
+      subjectBoundReason: m.boundReason,
+      bySubject: m.byValue.map((e) => ({ subject: e.value, windows: e.windows })),
+    })),
+    subjectNMI: c.nmi,
+    cramersV: c.cramersV,
+    subjectChiSquare: c.chiSquare,
+    cohortEffectiveSubjects: c.cohort.effectiveValues,
+    subjectBoundRule: c.rule,
+  };
 }
