@@ -137,7 +137,7 @@ function inferNumber(
 }
 
 /** True when the values are consecutive integers 0,1,2,... or 1,2,3,... (a row counter). */
-function isCounter(v: Float64Array): boolean {
+function isCounter(v: Float32Array | Float64Array): boolean {
   if (v.length < 2 || (v[0] !== 0 && v[0] !== 1)) return false;
   for (let i = 1; i < v.length; i++) if (v[i] !== v[i - 1] + 1) return false;
   return true;

@@ -1,8 +1,22 @@
-/** A numeric column: NaN marks a missing value. */
+/** How a time column was written in the file; its values are always numbers. */
+export type TimeFormat =
+  /** ISO 8601 text; values are seconds since 1970-01-01T00:00:00Z (text without a zone is read as UTC). */
+  | 'iso8601'
+  /** Numbers in seconds (epoch or relative). */
+  | 'seconds'
+  /** Numbers in milliseconds (epoch or relative). */
+  | 'milliseconds';
+
+/**
+ * A numeric column: NaN marks a missing value. Large tables keep feature columns in single
+ * precision (half the memory); time, id and code columns always stay in double precision.
+ */
 export interface NumericColumn {
   kind: 'numeric';
   name: string;
-  values: Float64Array;
+  values: Float32Array | Float64Array;
+  /** Set when the column was read as timestamps (ISO 8601 text or a typed timestamp column). */
+  time?: TimeFormat;
 }
 
 /** A text column, dictionary-encoded: codes index `dictionary`; -1 marks a missing value. */
@@ -21,17 +35,29 @@ export interface Table {
   fileName: string;
   nRows: number;
   columns: Column[];
+  /**
+   * 1-based line of the file where each row starts (the header is line 1), for messages. When
+   * absent (columnar files), row r is reported as r + 2, as if the file had one line per row.
+   */
+  lines?: Int32Array;
 }
 
 export function findColumn(table: Table, name: string): Column | undefined {
   return table.columns.find((c) => c.name === name);
 }
 
-/** The text of a cell, for display and export ('' when missing). */
+/** The row number a message should name for 0-based row r (header = row 1). */
+export function rowLine(table: Table, r: number): number {
+  return table.lines ? table.lines[r] : r + 2;
+}
+
+/** The text of a cell, for display and export ('' when missing). ISO 8601 times print as ISO 8601 (UTC). */
 export function cellText(column: Column, row: number): string {
   if (column.kind === 'numeric') {
     const v = column.values[row];
-    return Number.isNaN(v) ? '' : String(v);
+    if (Number.isNaN(v)) return '';
+    if (column.time === 'iso8601') return new Date(Math.round(v * 1000)).toISOString();
+    return String(v);
   }
   const code = column.codes[row];
   return code < 0 ? '' : column.dictionary[code];

@@ -48,7 +48,7 @@ describe('parseCsv(bytes, fileName)', () => {
 
   it('names row, expected and found field counts for a ragged row', () => {
     const e = failure('a,b,c\n1,2,3\n4,5\n');
-    expect(e.details).toMatchObject({ file: 'w.csv', row: 3, expected: '3 fields, as in the header', found: '2 fields' });
+    expect(e.details).toMatchObject({ file: 'w.csv', row: 3, expected: '3 fields, as in the header', found: '2 fields (the delimiter is comma)' });
     expect(e.message).toContain('row 3');
   });
 

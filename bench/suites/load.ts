@@ -1,0 +1,134 @@
+// Suite "load": reading a windows table of 1,000,000 windows × 50 features (--quick: 100,000) from
+// CSV and from Parquet, ours (streamed chunks into the core readers) beside DuckDB's read_csv and
+// read_parquet into an in-memory table, in one process. The seeded files are generated once into
+// $TMPDIR/gleaner-bench-load/ (CSV written here, Parquet converted from it by DuckDB, snappy).
+import { DuckDBInstance } from '@duckdb/node-api';
+import { spawnSync } from 'node:child_process';
+import { closeSync, createReadStream, existsSync, mkdirSync, openSync, renameSync, statSync, writeSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+import { normal, seededRandom } from '../../src/core/random';
+import { detectFormat } from '../../src/core/table/format';
+import { createTableReader } from '../../src/core/table/reader';
+import type { Table } from '../../src/core/table/table';
+import { measure } from '../measure';
+
+const D = 50;
+const SUBJECTS = 100;
+const SEED = 20240611;
+const CACHE = join(tmpdir(), 'gleaner-bench-load');
+
+/** Writes the seeded CSV (window_id, subject, start, f0..f49), a block of rows at a time. */
+function writeCsv(path: string, n: number): void {
+  const random = seededRandom(SEED + n);
+  const fd = openSync(`${path}.part`, 'w');
+  const header = ['window_id', 'subject', 'start', ...Array.from({ length: D }, (_, j) => `f${j}`)].join(',');
+  writeSync(fd, `${header}\n`);
+  let block: string[] = [];
+  for (let i = 0; i < n; i++) {
+    const cells = [String(i), `S${String(i % SUBJECTS).padStart(3, '0')}`, String(5 * Math.floor(i / SUBJECTS))];
+    for (let j = 0; j < D; j++) cells.push((normal(random) * (1 + j / 10) + j).toFixed(6));
+    block.push(cells.join(','));
+    if (block.length === 10_000) {
+      writeSync(fd, `${block.join('\n')}\n`);
+      block = [];
+    }
+  }
+  if (block.length) writeSync(fd, `${block.join('\n')}\n`);
+  closeSync(fd);
+  renameSync(`${path}.part`, path);
+}
+
+async function files(n: number): Promise<{ csv: string; parquet: string }> {
+  mkdirSync(CACHE, { recursive: true });
+  const csv = join(CACHE, `windows-${n}x${D}.csv`);
+  const parquet = join(CACHE, `windows-${n}x${D}.parquet`);
+  if (!existsSync(csv)) {
+    console.log(`load: writing ${csv} (once)`);
+    writeCsv(csv, n);
+  }
+  if (!existsSync(parquet)) {
+    console.log(`load: writing ${parquet} with DuckDB (once)`);
+    const db = await DuckDBInstance.create(':memory:');
+    const con = await db.connect();
+    await con.run(`COPY (SELECT * FROM read_csv('${csv}')) TO '${parquet}.part' (FORMAT parquet, COMPRESSION snappy, ROW_GROUP_SIZE 100000)`);
+    con.closeSync();
+    db.closeSync();
+    renameSync(`${parquet}.part`, parquet);
+  }
+  return { csv, parquet };
+}
+
+/** Ours, as the CLI reads: a 4 MiB read stream pushed chunk by chunk into the core reader. */
+async function readOurs(path: string): Promise<Table> {
+  const size = statSync(path).size;
+  let reader: ReturnType<typeof createTableReader> | null = null;
+  for await (const chunk of createReadStream(path, { highWaterMark: 4 << 20 }) as AsyncIterable<Buffer>) {
+    const bytes = new Uint8Array(chunk.buffer, chunk.byteOffset, chunk.byteLength);
+    reader ??= createTableReader(detectFormat(path, bytes), path, { totalBytes: size });
+    reader.push(bytes);
+  }
+  if (!reader) throw new Error(`${path} is empty`);
+  return reader.finish();
+}
+
+async function readDuck(sql: string): Promise<number> {
+  const db = await DuckDBInstance.create(':memory:');
+  const con = await db.connect();
+  await con.run(`CREATE TABLE t AS SELECT * FROM ${sql}`);
+  const rows = Number((await con.runAndReadAll('SELECT count(*) FROM t')).getRows()[0][0]);
+  con.closeSync();
+  db.closeSync();
+  return rows;
+}
+
+/**
+ * Peak resident memory of one read in a fresh process (getrusage maxrss, MiB): the in-process
+ * figure is a rise above a warmed-up heap, which hides memory the allocator kept from earlier runs.
+ */
+function freshPeakMiB(who: 'ours' | 'duck', path: string): number {
+  const self = fileURLToPath(import.meta.url);
+  const r = spawnSync(process.execPath, ['--import', 'tsx', self, who, path], { encoding: 'utf8' });
+  if (r.status !== 0) throw new Error(`load child failed: ${r.stderr}`);
+  return JSON.parse(r.stdout.trim().split('\n').pop() as string).peakMiB;
+}
+
+export async function run(quick: boolean): Promise<void> {
+  const n = quick ? 100_000 : 1_000_000;
+  const { csv, parquet } = await files(n);
+  const matrixMiB = (n * D * 4) / 2 ** 20;
+  const limitMiB = 2.5 * matrixMiB + 150;
+  console.log(`load: ${n} windows × ${D} features; CSV ${(statSync(csv).size / 2 ** 20).toFixed(0)} MiB, Parquet ${(statSync(parquet).size / 2 ** 20).toFixed(0)} MiB`);
+  console.log(`memory target: ours at most 2.5 × Float32 matrix (${matrixMiB.toFixed(0)} MiB) + 150 = ${limitMiB.toFixed(0)} MiB`);
+  const rows: { task: string; who: string; ms: number; peakMiB: number; check: string }[] = [];
+  const oursCsv = await measure(() => readOurs(csv));
+  rows.push({ task: 'CSV', who: 'gleaner', ms: oursCsv.ms, peakMiB: oursCsv.peakMiB, check: `${oursCsv.result.nRows} rows` });
+  const duckCsv = await measure(() => readDuck(`read_csv('${csv}')`));
+  rows.push({ task: 'CSV', who: 'duckdb read_csv', ms: duckCsv.ms, peakMiB: duckCsv.peakMiB, check: `${duckCsv.result} rows` });
+  const oursPq = await measure(() => readOurs(parquet));
+  rows.push({ task: 'Parquet', who: 'gleaner', ms: oursPq.ms, peakMiB: oursPq.peakMiB, check: `${oursPq.result.nRows} rows` });
+  const duckPq = await measure(() => readDuck(`read_parquet('${parquet}')`));
+  rows.push({ task: 'Parquet', who: 'duckdb read_parquet', ms: duckPq.ms, peakMiB: duckPq.peakMiB, check: `${duckPq.result} rows` });
+
+  const fresh = [freshPeakMiB('ours', csv), freshPeakMiB('duck', csv), freshPeakMiB('ours', parquet), freshPeakMiB('duck', parquet)];
+  const base = freshPeakMiB('ours', '');
+
+  console.log(`\ntask     who                    median ms   rise MiB   fresh-process peak MiB (node alone: ${base.toFixed(0)})   check`);
+  rows.forEach((r, i) => {
+    console.log(`${r.task.padEnd(8)} ${r.who.padEnd(22)} ${r.ms.toFixed(0).padStart(9)} ${r.peakMiB.toFixed(0).padStart(10)} ${fresh[i].toFixed(0).padStart(12)}   ${r.check}`);
+  });
+  const ratio = (a: number, b: number) => (a / b).toFixed(2);
+  console.log(`\nCSV: ours / DuckDB time ${ratio(oursCsv.ms, duckCsv.ms)} (target ≤ 1.5); peak ${oursCsv.peakMiB.toFixed(0)} MiB (target ≤ ${limitMiB.toFixed(0)}); fresh process ${fresh[0].toFixed(0)} MiB`);
+  console.log(`Parquet: ours / DuckDB time ${ratio(oursPq.ms, duckPq.ms)} (target ≤ 1.5); peak ${oursPq.peakMiB.toFixed(0)} MiB (target ≤ ${limitMiB.toFixed(0)}); fresh process ${fresh[2].toFixed(0)} MiB`);
+}
+
+// Child mode (see freshPeakMiB): `load.ts ours|duck <path>` reads once and prints its peak RSS.
+if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) {
+  const [who, path] = process.argv.slice(2);
+  if (path) {
+    if (who === 'ours') await readOurs(path);
+    else await readDuck(path.endsWith('.csv') ? `read_csv('${path}')` : `read_parquet('${path}')`);
+  }
+  console.log(JSON.stringify({ peakMiB: process.resourceUsage().maxRSS / 1024 }));
+}

@@ -1,0 +1,64 @@
+import { DataType, makeVector, tableFromIPC, type Table as ArrowTable, type Vector } from 'apache-arrow';
+import { InputError } from '../errors';
+import { quietContext, type JobContext } from '../job';
+import { ByteCollector } from './collect-bytes';
+import { AUTO_FLOAT32_BYTES, DEFAULT_READ_OPTIONS, type ReadOptions, type TableReader } from './reader.types';
+import { roleFromName } from './roles';
+import type { Table } from './table';
+import { ValueColumn } from './value-column';
+
+const WIDE_ROLES = new Set(['id', 'subject', 'session', 'start', 'end', 'duration', 'label', 'metadata']);
+
+/** Arrow IPC (file or stream format), decoded column by column with a checkpoint between columns. */
+export class ArrowReader implements TableReader {
+  private readonly bytes: ByteCollector;
+  private readonly opts: Required<ReadOptions>;
+
+  constructor(private readonly fileName: string, options: ReadOptions = {}) {
+    this.opts = { ...DEFAULT_READ_OPTIONS, ...options };
+    this.bytes = new ByteCollector(this.opts.totalBytes);
+  }
+
+  get bytesConsumed(): number {
+    return this.bytes.length;
+  }
+
+  push(chunk: Uint8Array): void {
+    this.bytes.push(chunk);
+  }
+
+  async finish(ctx: JobContext = quietContext): Promise<Table> {
+    const size = this.bytes.length;
+    const bytes = new Uint8Array(this.bytes.take());
+    if (size === 0) throw new InputError({ file: this.fileName, expected: 'an Arrow IPC file', found: 'an empty file (0 bytes)' });
+    let arrow: ArrowTable;
+    try {
+      arrow = tableFromIPC(bytes);
+    } catch (e) {
+      throw new InputError({ file: this.fileName, expected: 'a complete Arrow IPC file (it is damaged or cut short)', found: e instanceof Error ? e.message : String(e) });
+    }
+    const nRows = arrow.numRows;
+    if (arrow.schema.fields.length === 0) throw new InputError({ file: this.fileName, expected: 'at least one column', found: 'an Arrow file without columns' });
+    if (nRows === 0) throw new InputError({ file: this.fileName, row: 2, expected: 'at least one data row', found: 'an Arrow file with no rows' });
+    const { precision, totalBytes } = this.opts;
+    const narrow = precision === 'float32' || (precision === 'auto' && Math.max(totalBytes, size) > AUTO_FLOAT32_BYTES);
+    const columns = [];
+    for (const [j, field] of arrow.schema.fields.entries()) {
+      const vector = arrow.getChildAt(j) as Vector;
+      const time = DataType.isTimestamp(field.type) || DataType.isDate(field.type);
+      const role = roleFromName(field.name);
+      const column = new ValueColumn(field.name, nRows, !narrow || time || (role !== undefined && WIDE_ROLES.has(role)), time ? 'iso8601' : undefined);
+      let start = 0;
+      for (const data of vector.data) {
+        const part = makeVector(data);
+        const plain = (DataType.isFloat(field.type) || DataType.isInt(field.type)) && data.nullCount === 0 ? part.toArray() : Array.from(part);
+        column.set(start, time ? (plain as (number | null)[]).map((v) => (v === null ? null : Number(v) / 1000)) : (plain as ArrayLike<unknown>));
+        start += data.length;
+      }
+      columns.push(column.finish());
+      ctx.progress('decoding', (j + 1) / arrow.schema.fields.length);
+      await ctx.checkpoint();
+    }
+    return { fileName: this.fileName, nRows, columns };
+  }
+}
