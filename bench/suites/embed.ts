@@ -1,0 +1,221 @@
+// Suite "embed": our t-SNE (Barnes–Hut) beside druid.js TSNE (exact) on seeded Gaussian blobs
+// (d = 50, 10 centres) at n = 2k, 10k, 20k, 50k, 100k (--quick: 2k, 10k) and on the demo windows
+// (z-scored features). Prints time, peak memory and trustworthiness (k = 10, seeded sample of up to
+// 5,000 windows) and appends JSON lines to bench-results/embed.jsonl.
+//
+// Peers run in a child process (`node --import tsx bench/suites/embed.ts --peer <name> ...`) so that
+// one can be killed at the time budget or when it runs out of memory; a peer whose estimated time is
+// past the budget is skipped and reported as skipped.
+import { spawn } from 'node:child_process';
+import { appendFileSync, mkdirSync, readFileSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { TSNE as DruidTSNE } from '@saehrimnir/druidjs';
+import { runTsne } from '../../src/core/embed/tsne';
+import { quietContext } from '../../src/core/job';
+import { sampledTrustworthiness } from '../../src/core/metrics/trustworthiness';
+import { seededRandom } from '../../src/core/random';
+import { baselineRecipe } from '../../src/core/recipe/baseline';
+import { parseCsv } from '../../src/core/table/csv';
+import { featureMatrix } from '../../src/core/table/matrix';
+import { inferRoles } from '../../src/core/table/roles';
+import { benchUmap } from '../embed-umap';
+import { gaussianBlobs } from '../blobs';
+import { PeakSampler } from '../peak';
+
+const D = 50;
+const CENTRES = 10;
+const SEED = 20240601;
+const K = 10;
+const SAMPLE = 5000;
+/** A peer is skipped when its estimated (or actual) time passes this. */
+const BUDGET_S = 300;
+/** At or below this n every implementation of ours runs 3 times (median); above it once. */
+const SMALL_N = 2000;
+const RESULTS = 'bench-results/embed.jsonl';
+
+export interface Dataset {
+  name: string;
+  data: Float64Array;
+  n: number;
+  d: number;
+}
+
+/** One result line; `seconds` and friends are null for a skipped peer. */
+export interface EmbedRow {
+  suite: 'embed';
+  method: string;
+  impl: string;
+  dataset: string;
+  n: number;
+  d: number;
+  seconds: number | null;
+  peak_mib: number | null;
+  trustworthiness: number | null;
+  runs: number;
+  note?: string;
+}
+
+const rows: EmbedRow[] = [];
+
+/** Records a row: kept for the table and appended to bench-results/embed.jsonl. */
+export function recordRow(row: EmbedRow): void {
+  rows.push(row);
+  mkdirSync('bench-results', { recursive: true });
+  appendFileSync(RESULTS, `${JSON.stringify(row)}\n`);
+}
+
+/** Trustworthiness(k = 10) of a map on a seeded sample of up to 5,000 windows (same sample for every impl). */
+export function quality(ds: Dataset, map: Float32Array | Float64Array): number {
+  return sampledTrustworthiness(ds.data, ds.n, ds.d, map, 2, K, { sample: SAMPLE, random: seededRandom(SEED) });
+}
+
+/**
+ * Times `fn` in this process: median of `runs` runs (no warm-up run when runs = 1) and the largest
+ * rise of the RSS above its level at the start of a run, sampled every 1 ms from a worker thread.
+ */
+export async function timeInProcess<T>(fn: () => Promise<T>, runs: number): Promise<{ seconds: number; peakMiB: number; result: T }> {
+  const sampler = new PeakSampler();
+  await sampler.ready();
+  const times: number[] = [];
+  let peak = 0;
+  let result: T | undefined;
+  try {
+    for (let r = 0; r < runs; r++) {
+      const base = sampler.reset();
+      const t0 = performance.now();
+      result = await fn();
+      times.push((performance.now() - t0) / 1000);
+      peak = Math.max(peak, sampler.peakMiB() - base);
+    }
+  } finally {
+    await sampler.stop();
+  }
+  times.sort((a, b) => a - b);
+  return { seconds: times[Math.floor(times.length / 2)], peakMiB: peak, result: result as T };
+}
+
+/**
+ * Runs a peer in a child process with a time budget. The child prints one JSON line
+ * {seconds, peakMiB, map}; a child killed at the budget or dying (for example out of memory) gives
+ * a skipped row with the reason.
+ */
+export function runPeerChild(peer: string, dataset: string, n: number): Promise<{ seconds: number; peakMiB: number; map: number[] } | { skipped: string }> {
+  const self = fileURLToPath(import.meta.url);
+  return new Promise((resolve) => {
+    const child = spawn(process.execPath, ['--import', 'tsx', self, '--peer', peer, dataset, String(n)], { stdio: ['ignore', 'pipe', 'pipe'] });
+    let out = '';
+    let err = '';
+    child.stdout.on('data', (b: Buffer) => { out += b.toString(); });
+    child.stderr.on('data', (b: Buffer) => { err += b.toString(); });
+    const timer = setTimeout(() => child.kill('SIGKILL'), BUDGET_S * 1000);
+    child.on('close', (code, signal) => {
+      clearTimeout(timer);
+      if (signal === 'SIGKILL') return resolve({ skipped: `killed at the ${BUDGET_S} s budget` });
+      const line = out.trim().split('\n').pop() ?? '';
+      if (code !== 0 || !line.startsWith('{')) return resolve({ skipped: `failed (exit ${code}): ${err.trim().split('\n').slice(-1)[0] ?? ''}` });
+      resolve(JSON.parse(line) as { seconds: number; peakMiB: number; map: number[] });
+    });
+  });
+}
+
+export function blobsDataset(n: number): Dataset {
+  const b = gaussianBlobs(n, D, CENTRES, SEED + n);
+  return { name: 'blobs', data: b.data, n, d: D };
+}
+
+/**
+ * The demo windows' feature columns, z-scored with missing values filled (the baseline recipe);
+ * only the first `limit` windows (file order) when given.
+ */
+export function demoDataset(limit = Infinity): Dataset {
+  const table = parseCsv(new Uint8Array(readFileSync('demo-data/windows.csv')), 'windows.csv');
+  const matrix = featureMatrix(table, inferRoles(table));
+  const n = Math.min(matrix.n, limit);
+  return { name: 'demo windows', data: baselineRecipe(matrix).data.slice(0, n * matrix.d), n, d: matrix.d };
+}
+
+function load(dataset: string, n: number): Dataset {
+  return dataset === 'demo' ? demoDataset(n) : blobsDataset(n);
+}
+
+/** Our t-SNE on a dataset: one row. */
+async function benchOurTsne(ds: Dataset, key: string): Promise<void> {
+  const runs = ds.n <= SMALL_N ? 3 : 1;
+  const m = await timeInProcess(() => runTsne(ds.data, ds.n, ds.d, { seed: 1 }, quietContext), runs);
+  recordRow({ suite: 'embed', method: 't-SNE', impl: 'gleaner', dataset: key, n: ds.n, d: ds.d, seconds: m.seconds, peak_mib: m.peakMiB, trustworthiness: quality(ds, m.result), runs });
+}
+
+/** druid.js TSNE (exact, O(n²) per iteration): skipped when its estimated time passes the budget. */
+async function benchDruidTsne(ds: Dataset, key: string): Promise<void> {
+  // Estimate from the measurement in ../shared/PEERS.md: 41 s at 2k, growing as n².
+  const estimate = 41 * (ds.n / 2000) ** 2;
+  const base = { suite: 'embed' as const, method: 't-SNE', impl: 'druid.js 0.9.0', dataset: key, n: ds.n, d: ds.d, runs: 1 };
+  if (estimate > BUDGET_S) {
+    recordRow({ ...base, seconds: null, peak_mib: null, trustworthiness: null, note: `skipped: estimated ${estimate.toFixed(0)} s > ${BUDGET_S} s budget (O(n²) from 41 s at 2k)` });
+    return;
+  }
+  const r = await runPeerChild('druid-tsne', key === 'blobs' ? 'blobs' : 'demo', ds.n);
+  if ('skipped' in r) {
+    recordRow({ ...base, seconds: null, peak_mib: null, trustworthiness: null, note: `skipped: ${r.skipped}` });
+    return;
+  }
+  recordRow({ ...base, seconds: r.seconds, peak_mib: r.peakMiB, trustworthiness: quality(ds, Float64Array.from(r.map)) });
+}
+
+/** Child-process side of a peer run: prints {seconds, peakMiB, map}. */
+async function peerChild(peer: string, dataset: string, n: number): Promise<void> {
+  const ds = load(dataset, n);
+  if (peer !== 'druid-tsne') throw new Error(`unknown peer ${peer}`);
+  const input = Array.from({ length: ds.n }, (_, i) => ds.data.subarray(i * ds.d, i * ds.d + ds.d));
+  const m = await timeInProcess(async () => {
+    // Same perplexity and iterations as ours; druid's own learning rate (epsilon 10) and seed.
+    const y = new DruidTSNE(input, { perplexity: 30, d: 2, seed: 1 }).transform(1000) as unknown as ArrayLike<number>[];
+    const flat = new Array<number>(2 * ds.n);
+    for (let i = 0; i < ds.n; i++) { flat[2 * i] = y[i][0]; flat[2 * i + 1] = y[i][1]; }
+    return flat;
+  }, 1);
+  process.stdout.write(`${JSON.stringify({ seconds: m.seconds, peakMiB: m.peakMiB, map: m.result })}\n`);
+}
+
+function print(): void {
+  const head = ['method', 'dataset', 'n', 'implementation', 'runs', 'seconds', 'peak MiB', 'trust.(k=10)', 'speed-up vs fastest peer', 'note'];
+  const body = rows.map((r) => {
+    const peers = rows.filter((p) => p.impl !== 'gleaner' && p.method === r.method && p.dataset === r.dataset && p.n === r.n && p.seconds !== null);
+    const ok = peers.filter((p) => r.trustworthiness !== null && p.trustworthiness !== null && r.trustworthiness >= p.trustworthiness - 0.01);
+    const fastest = ok.sort((a, b) => a.seconds! - b.seconds!)[0];
+    const ratio = r.impl === 'gleaner' && fastest && r.seconds ? `${(fastest.seconds! / r.seconds).toFixed(1)}× (${fastest.impl})` : '';
+    return [r.method, r.dataset, String(r.n), r.impl, String(r.runs), r.seconds?.toFixed(2) ?? '-', r.peak_mib?.toFixed(0) ?? '-', r.trustworthiness?.toFixed(4) ?? '-', ratio, r.note ?? ''];
+  });
+  const widths = head.map((h, j) => Math.max(h.length, ...body.map((b) => b[j].length)));
+  const line = (cells: string[]) => `| ${cells.map((c, j) => c.padEnd(widths[j])).join(' | ')} |`;
+  console.log(line(head));
+  console.log(`|${widths.map((w) => '-'.repeat(w + 2)).join('|')}|`);
+  for (const b of body) console.log(line(b));
+}
+
+export async function run(quick: boolean): Promise<void> {
+  const sizes = quick ? [2_000, 10_000] : [2_000, 10_000, 20_000, 50_000, 100_000];
+  console.log(`t-SNE: Gaussian blobs d = ${D}, ${CENTRES} centres, seed ${SEED}; demo windows z-scored; Node ${process.version}${quick ? ' (quick)' : ''}`);
+  console.log(`ours: median of 3 runs at n <= ${SMALL_N}, 1 run above; peers: 1 run in a child process, ${BUDGET_S} s budget`);
+  const demo = demoDataset(quick ? 2_000 : Infinity); // --quick: the first 2,000 demo windows
+  await benchOurTsne(demo, 'demo windows');
+  await benchDruidTsne(demo, 'demo windows');
+  await benchUmap(demo, 'demo windows');
+  for (const n of sizes) {
+    const ds = blobsDataset(n);
+    await benchOurTsne(ds, 'blobs');
+    await benchDruidTsne(ds, 'blobs');
+    await benchUmap(ds, 'blobs'); // UMAP rows: ours, umap-js, druid.js (bench/embed-umap.ts)
+  }
+  print();
+  console.log(`trustworthiness: k = ${K} on a seeded sample of up to ${SAMPLE} windows, the same sample for every implementation.`);
+  console.log('peak MiB: largest rise of the RSS during a run (the child process for peers). Timings on a shared machine are indicative only.');
+  console.log(`rows appended to ${RESULTS}`);
+}
+
+const argv = process.argv;
+const peerAt = argv.indexOf('--peer');
+if (peerAt >= 0 && argv[1] && fileURLToPath(import.meta.url) === argv[1]) {
+  await peerChild(argv[peerAt + 1], argv[peerAt + 2], Number(argv[peerAt + 3]));
+  process.exit(0);
+}
