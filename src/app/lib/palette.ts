@@ -17,3 +17,33 @@ export function categoryColour(i: number): string {
   const n = CATEGORY_COLOURS.length;
   return CATEGORY_COLOURS[((i % n) + n) % n];
 }
+
+/**
+ * Viridis for continuous values (feature values, time): matplotlib's viridis colormap
+ * (lib/matplotlib/_cm_listed.py `_viridis_data`, from BIDS/colormap option_d.py by van der Walt,
+ * Smith and Firing), every 16th of its 256 entries (0, 16, …, 240, 255), interpolated linearly.
+ */
+const VIRIDIS_STOPS = [
+  '#440154', '#48186a', '#472d7b', '#424086', '#3b528b', '#33638d', '#2c728e', '#26828e', '#21918c',
+  '#1fa088', '#28ae80', '#3fbc73', '#5ec962', '#84d44b', '#addc30', '#d8e219', '#fde725',
+];
+const STOP_AT = VIRIDIS_STOPS.map((_, i) => (i === VIRIDIS_STOPS.length - 1 ? 1 : (16 * i) / 255));
+const STOP_RGB = VIRIDIS_STOPS.map((h) => [1, 3, 5].map((o) => parseInt(h.slice(o, o + 2), 16)));
+
+/** Viridis at t in [0, 1] (clamped) as 8-bit [r, g, b]. */
+export function viridis(t: number): [number, number, number] {
+  const x = Math.min(1, Math.max(0, Number.isFinite(t) ? t : 0));
+  let j = 1;
+  while (j < STOP_AT.length - 1 && STOP_AT[j] < x) j++;
+  const f = (x - STOP_AT[j - 1]) / (STOP_AT[j] - STOP_AT[j - 1]);
+  const a = STOP_RGB[j - 1], b = STOP_RGB[j];
+  return [0, 1, 2].map((c) => Math.round(a[c] + (b[c] - a[c]) * f)) as [number, number, number];
+}
+
+/** '#rrggbb' of an 8-bit colour. */
+export function hexOf([r, g, b]: readonly number[]): string {
+  return `#${[r, g, b].map((v) => v.toString(16).padStart(2, '0')).join('')}`;
+}
+
+/** Points with no value (missing label, feature or time) are drawn light grey. */
+export const MISSING_COLOUR = '#cfd3d8';

@@ -1,23 +1,114 @@
 import type { Roles } from '../../core/table/roles.types';
-import type { Table } from '../../core/table/table';
+import type { Column, Table } from '../../core/table/table';
 import { categoriesOf, columnWithRole } from '../lib/columns';
-import { categoryColour } from '../lib/palette';
+import { CATEGORY_COLOURS, MISSING_COLOUR, hexOf, viridis } from '../lib/palette';
 import type { ColourBy } from '../state/map.svelte';
+import { packHex, packRGBA } from './raster';
 
-export interface Colouring {
-  colourOf: Int32Array;
-  colours: string[];
-  /** Legend entries, one per colour. */
-  names: string[];
+export interface CategoryLegend {
+  kind: 'categories';
+  title: string;
+  entries: { name: string; colour: string }[];
 }
 
-/** Point colours for the Map: by cluster, or by subject when the table has a subject column. */
-export function colouring(by: ColourBy, labels: Int32Array, k: number, names: (c: number) => string, table: Table, roles: Roles): Colouring {
-  const subject = by === 'subject' ? columnWithRole(table, roles, 'subject') : undefined;
-  if (subject) {
-    const cats = categoriesOf(subject, table.nRows);
-    return { colourOf: cats.codes, colours: cats.names.map((_, i) => categoryColour(i)), names: cats.names };
+export interface ScaleLegend {
+  kind: 'scale';
+  title: string;
+  min: string;
+  max: string;
+  /** CSS colours from min to max, for a gradient bar. */
+  stops: string[];
+  /** Windows without a value (drawn light grey). */
+  missing: number;
+}
+
+/** Point colours for the Map: a palette index per point, the packed palette and the legend. */
+export interface Colouring {
+  index: Uint8Array;
+  palette: Uint32Array;
+  legend: CategoryLegend | ScaleLegend;
+}
+
+const N_CAT = CATEGORY_COLOURS.length;
+/** Category palette: the category colours, then the missing colour. */
+const CATEGORY_PALETTE = Uint32Array.from([...CATEGORY_COLOURS, MISSING_COLOUR].map(packHex));
+/** Scale palette: 255 viridis steps, then the missing colour. */
+const SCALE_STEPS = 255;
+const SCALE_PALETTE = Uint32Array.from([
+  ...Array.from({ length: SCALE_STEPS }, (_, i) => packRGBA(...viridis(i / (SCALE_STEPS - 1)))),
+  packHex(MISSING_COLOUR),
+]);
+
+/**
+ * Colours by category codes (negative = missing). Categories beyond the palette reuse its colours
+ * in turn, so the index array is always one byte per window.
+ */
+export function categoryColouring(codes: Int32Array, names: string[], title: string, missingCode = -1): Colouring {
+  const index = new Uint8Array(codes.length);
+  for (let i = 0; i < codes.length; i++) {
+    const c = codes[i];
+    index[i] = c < 0 || c === missingCode ? N_CAT : c % N_CAT;
   }
-  const ks = Array.from({ length: k }, (_, c) => c);
-  return { colourOf: labels, colours: ks.map(categoryColour), names: ks.map(names) };
+  const entries = names.map((name, c) => ({ name, colour: c === missingCode ? MISSING_COLOUR : CATEGORY_COLOURS[c % N_CAT] }));
+  return { index, palette: CATEGORY_PALETTE, legend: { kind: 'categories', title, entries } };
+}
+
+/** Colours numeric values on viridis from their minimum to their maximum; NaN = missing. */
+export function scaleColouring(values: Float32Array | Float64Array, title: string, format: (v: number) => string = formatValue): Colouring {
+  let min = Infinity, max = -Infinity, missing = 0;
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i];
+    if (v !== v) { missing++; continue; }
+    if (v < min) min = v;
+    if (v > max) max = v;
+  }
+  const k = (SCALE_STEPS - 1) / (max > min ? max - min : 1);
+  const index = new Uint8Array(values.length);
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i];
+    // v !== v: NaN (missing); the step is rounded half up (values are ≥ min).
+    index[i] = v !== v ? SCALE_STEPS : ((v - min) * k + 0.5) | 0;
+  }
+  const stops = Array.from({ length: 9 }, (_, i) => hexOf(viridis(i / 8)));
+  const none = missing === values.length;
+  return {
+    index,
+    palette: SCALE_PALETTE,
+    legend: { kind: 'scale', title, min: none ? '–' : format(min), max: none ? '–' : format(max), stops, missing },
+  };
+}
+
+export function formatValue(v: number): string {
+  return Math.abs(v) >= 1e5 || (v !== 0 && Math.abs(v) < 1e-3) ? v.toExponential(2) : String(Number(v.toPrecision(4)));
+}
+
+/** Start times: Unix seconds (or milliseconds) are shown as UTC date and time, other numbers as they are. */
+export function formatTime(v: number): string {
+  const ms = v > 1e11 ? v : v > 1e8 ? v * 1000 : NaN;
+  return Number.isNaN(ms) ? formatValue(v) : new Date(ms).toISOString().slice(0, 16).replace('T', ' ');
+}
+
+function columnColouring(column: Column, nRows: number, title: string, format?: (v: number) => string): Colouring {
+  if (column.kind === 'numeric' && format) return scaleColouring(column.values, title, format);
+  const cats = categoriesOf(column, nRows);
+  const missing = cats.names.length > 0 && cats.names[cats.names.length - 1] === '(missing)' ? cats.names.length - 1 : -1;
+  return categoryColouring(cats.codes, cats.names, title, missing);
+}
+
+/**
+ * The Map's colouring: by cluster, subject, start time, or a named label, metadata or feature
+ * column. Falls back to clusters when the column is gone (for example after a role change).
+ */
+export function colouring(by: ColourBy, labels: Int32Array, k: number, names: (c: number) => string, table: Table, roles: Roles): Colouring {
+  const n = labels.length;
+  if (by === 'subject' || by === 'time') {
+    const column = columnWithRole(table, roles, by === 'subject' ? 'subject' : 'start');
+    if (column) return columnColouring(column, n, by, by === 'time' ? formatTime : undefined);
+  } else if (by !== 'cluster') {
+    const sep = by.indexOf(':');
+    const kind = by.slice(0, sep), name = by.slice(sep + 1);
+    const column = table.columns.find((c) => c.name === name);
+    if (column) return columnColouring(column, n, name, kind === 'feature' ? formatValue : undefined);
+  }
+  return categoryColouring(labels, Array.from({ length: k }, (_, c) => names(c)), 'cluster');
 }

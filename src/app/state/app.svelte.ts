@@ -8,6 +8,7 @@ import { isoNow } from '../lib/clock';
 import { describeError, isCancelled } from '../lib/errors';
 import { weakLabelFiles } from '../lib/export-files';
 import { ownBuffer, sha256Hex } from '../lib/hash';
+import { DockState } from './dock.svelte';
 import { MapState } from './map.svelte';
 import { RunParams } from './params.svelte';
 import { Selection } from './selection.svelte';
@@ -25,6 +26,7 @@ export class AppState {
   readonly selection = new Selection();
   readonly status = new Status();
   readonly map = new MapState();
+  readonly dock = new DockState();
   aboutOpen = $state(false);
   /** Completed runs since start (tests wait on it). */
   runCount = $state(0);

@@ -1,6 +1,7 @@
 import type { MapView } from '../map/view';
 
-export type ColourBy = 'cluster' | 'subject';
+/** How the Map colours windows: by cluster, subject, start time, or a label, metadata or feature column by name. */
+export type ColourBy = 'cluster' | 'subject' | 'time' | `label:${string}` | `metadata:${string}` | `feature:${string}`;
 export type MapTool = 'pan' | 'box' | 'lasso';
 
 /** What the Map shows and how: colouring, the active tool, and what was last drawn. */
