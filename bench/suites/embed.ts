@@ -174,7 +174,8 @@ async function peerChild(peer: string, dataset: string, n: number): Promise<void
     for (let i = 0; i < ds.n; i++) { flat[2 * i] = y[i][0]; flat[2 * i + 1] = y[i][1]; }
     return flat;
   }, 1);
-  process.stdout.write(`${JSON.stringify({ seconds: m.seconds, peakMiB: m.peakMiB, map: m.result })}\n`);
+  // Exit only once the (possibly large) line is flushed: an early exit truncates piped stdout.
+  await new Promise<void>((resolve) => process.stdout.write(`${JSON.stringify({ seconds: m.seconds, peakMiB: m.peakMiB, map: m.result })}\n`, () => resolve()));
 }
 
 function print(): void {
