@@ -1,19 +1,28 @@
-import { createHash } from 'node:crypto';
-import { existsSync, mkdirSync, readFileSync, realpathSync, statSync } from 'node:fs';
-import { basename, join, resolve } from 'node:path';
+import { existsSync, mkdirSync, realpathSync, statSync } from 'node:fs';
+import { join, resolve } from 'node:path';
 import { DEFAULT_ANALYSIS_PARAMS, type AnalysisParams, type AnalysisResult } from '../core/analysis.types';
 import { OptionError } from '../core/errors';
-import { clusterComposition } from '../core/export/cluster-composition';
+import { categoricalColumn, composeByName } from '../core/composition/compose-by-name';
+import { labelAgreement } from '../core/composition/label-agreement';
+import { subjectComposition } from '../core/export/cluster-composition';
 import { mapCsv } from '../core/export/map-csv';
 import { columnWithRole } from '../core/export/window-columns';
 import { featureMatrix } from '../core/table/matrix';
+import { checkTable } from '../core/table/checks';
+import { inferRoles } from '../core/table/roles';
+import { readInputStep } from './read-input';
 import type { JobClient, RunningJob } from '../worker/client';
-import type { AnalyzeJob, ParseJob, ParseResult } from '../worker/jobs';
+import type { AnalyzeJob } from '../worker/jobs';
 import type { AnalyzeOptions } from './args';
 import type { ProgressReporter } from './progress-bar';
 import { buildSummary } from './summary';
 import { UsageError } from './args';
 import { writeFileAtomic } from './write-atomic';
+import { writeEventFiles } from './events-output';
+import { windowTimes } from '../core/export/segments';
+import { attachSubjects, recipeOption, useSubjectColumn } from './recipe-options';
+import { keepRows } from '../core/recipe/keep-rows';
+import { pipelineParams } from './pipeline-options';
 
 export interface AnalyzeDeps {
   client: JobClient;
@@ -35,36 +44,48 @@ export async function analyzeCommand(opts: AnalyzeOptions, deps: AnalyzeDeps): P
   const outFiles = { windows: join(outDir, 'windows.csv'), summary: join(outDir, 'summary.json') };
   refuseToOverwriteInput(opts.input, outDir, Object.values(outFiles));
 
-  const buf = readFileSync(opts.input);
-  const sha256 = createHash('sha256').update(buf).digest('hex');
-  const fileName = basename(opts.input);
-  // Hand the worker a buffer of its own (file buffers may share a pooled ArrayBuffer).
-  const bytes = new Uint8Array(buf);
-
-  const parsePayload: ParseJob = { fileName, bytes };
-  const { table, roles } = await runJob<ParseResult>(deps, 'parse', parsePayload, [bytes.buffer], 'reading');
+  const input = await readInputStep(opts.input, deps);
+  const { fileName, sha256 } = input;
+  let table = input.table;
+  let roles = inferRoles(table);
+  for (const w of checkTable(table, roles)) process.stderr.write(`gleaner: warning: ${w.message}\n`);
+  useSubjectColumn(table, roles, opts.subject);
+  const recipe = recipeOption(opts);
   const matrix = featureMatrix(table, roles);
-  if (opts.k > matrix.n) {
+  attachSubjects(matrix, table, roles);
+  for (const name of opts.compose ?? []) categoricalColumn(table, name); // fail before the long run
+  if (opts.events) windowTimes(table, roles);
+  if (opts.cutHeight === undefined && opts.k > matrix.n) {
     throw new OptionError('--k', opts.k, `at most the number of windows (${matrix.n})`);
   }
   const params: AnalysisParams = { ...DEFAULT_ANALYSIS_PARAMS, k: opts.k, seed: opts.seed, restarts: opts.restarts };
+  Object.assign(params, pipelineParams(opts, matrix.n, params));
   const { n, d, featureNames } = matrix;
+  if (recipe) params.recipe = recipe;
   const analyzePayload: AnalyzeJob = { matrix, params };
   const result = await runJob<AnalysisResult>(deps, 'analyze', analyzePayload, [matrix.data.buffer as ArrayBuffer], 'analysing');
+  // The recipe dropped windows: the outputs list the analysed windows only.
+  if (result.windows) ({ table, roles } = keepRows(table, roles, result.windows));
 
-  const composition = clusterComposition(result.labels, result.cluster.k, columnWithRole(table, roles, 'subject'));
+  const { clusters: composition, ...subjects } = subjectComposition(result.labels, result.cluster.k, columnWithRole(table, roles, 'subject'));
+  const compositions = (opts.compose ?? []).map((name) => composeByName(table, result.labels, result.cluster.k, name));
+  const label = columnWithRole(table, roles, 'label');
   const summary = buildSummary({
     input: { path: opts.input, fileName, sha256, rows: n, features: d, featureNames },
     roles,
     params,
     result,
     composition,
+    subjects,
+    compositions,
+    labelAgreement: label ? labelAgreement(result.labels, label) : null,
     version: deps.version,
   });
   mkdirSync(outDir, { recursive: true });
   writeFileAtomic(outFiles.windows, mapCsv({ table, roles, result }));
   writeFileAtomic(outFiles.summary, `${JSON.stringify(summary, null, 2)}\n`);
-  return { files: [outFiles.windows, outFiles.summary], rows: n, result };
+  const eventFiles = opts.events ? writeEventFiles(outDir, opts.input, table, roles, result) : [];
+  return { files: [outFiles.windows, outFiles.summary, ...eventFiles], rows: n, result };
 }
 
 async function runJob<R>(deps: AnalyzeDeps, job: string, payload: unknown, transfer: ArrayBuffer[], label: string): Promise<R> {

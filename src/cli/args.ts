@@ -1,4 +1,5 @@
 import { DEFAULT_ANALYSIS_PARAMS } from '../core/analysis.types';
+import { PIPELINE_FLAGS, PIPELINE_USAGE, pipelineOptions, type PipelineFlag, type PipelineOptions } from './pipeline-options';
 import { PROGRESS_MODES, type ProgressMode } from './progress-bar';
 
 /** A mistake on the command line: the CLI prints the message and exits with code 2. */
@@ -9,14 +10,31 @@ export class UsageError extends Error {
   }
 }
 
-export interface AnalyzeOptions {
+export interface AnalyzeOptions extends PipelineOptions {
   input: string;
   out: string;
   k: number;
   seed: number;
   restarts: number;
   progress: ProgressMode;
+  /** Categorical columns (besides the subject) whose mix per cluster goes into summary.json. */
+  compose?: string[];
+  /** Scaling (--scale); with --impute, builds the recipe when no --recipe file is given. */
+  scale?: ScaleChoice;
+  /** Missing-value handling (--impute). */
+  impute?: ImputeChoice;
+  /** Column to use as the subject (--subject), overriding the inferred one. */
+  subject?: string;
+  /** Path of a recipe JSON file (--recipe). */
+  recipe?: string;
+  /** Also write events.tsv and EDF+ annotation files (--events). */
+  events?: boolean;
 }
+
+export const SCALE_CHOICES = ['zscore', 'robust', 'subject-zscore', 'minmax', 'none'] as const;
+export type ScaleChoice = (typeof SCALE_CHOICES)[number];
+export const IMPUTE_CHOICES = ['mean', 'median', 'subject-median', 'drop'] as const;
+export type ImputeChoice = (typeof IMPUTE_CHOICES)[number];
 
 export type Command =
   | { command: 'help' }
@@ -24,9 +42,11 @@ export type Command =
   | ({ command: 'analyze' } & AnalyzeOptions);
 
 export const USAGE = `Usage: gleaner analyze <windows.csv> --out <dir> [options]
+       gleaner sweep <windows.csv> --k-min 2 --k-max 12 [--json]   (metrics per k; gleaner sweep --help)
+       gleaner run <study file> --out <dir>   (reproduce a saved study; gleaner run --help)
 
-Loads a featurized windows table, scales the features, embeds them with PCA and clusters them
-with k-means. Writes <dir>/windows.csv (id, subject, start, end, x, y, cluster, confidence) and
+Loads a featurized windows table, scales the features, makes a map of them (PCA, t-SNE or UMAP)
+and clusters them (k-means or a tree). Writes <dir>/windows.csv (id, subject, start, end, x, y, cluster, confidence) and
 <dir>/summary.json (input hash, recipe, algorithms, seed, metrics, subject mix per cluster).
 
 Options:
@@ -34,15 +54,27 @@ Options:
   --k <k>            number of clusters, an integer >= 2 (default ${DEFAULT_ANALYSIS_PARAMS.k})
   --seed <n>         seed for every random step, an integer >= 0 (default ${DEFAULT_ANALYSIS_PARAMS.seed})
   --restarts <n>     k-means restarts, an integer >= 1 (default ${DEFAULT_ANALYSIS_PARAMS.restarts})
+  --compose <cols>   also report the mix of these categorical columns (comma-separated, e.g.
+                     device,site) per cluster in summary.json, as is done for the subject
   --progress <mode>  auto (a bar on a terminal, else nothing), bar, lines (plain lines for
                      batch logs) or none (default auto)
+  --scale <how>      zscore (default), robust (median/IQR), subject-zscore (within each
+                     subject), minmax or none
+  --impute <how>     missing values: mean (default), median, subject-median (each subject's
+                     own median) or drop (leave out windows with any missing value)
+  --subject <column> the column naming each window's subject (default: inferred)
+  --recipe <file>    a recipe JSON file {"version": 1, "steps": [...]} instead of --scale and
+                     --impute; the recipe used is written into summary.json
+  --events           also write <dir>/events.tsv (BIDS-style segments of consecutive windows
+                     of one cluster per subject) and sub-<subject>_annotations.edf (EDF+)
+${PIPELINE_USAGE}
   -h, --help         show this help
   -V, --version      show the version
 
 Exit codes: 0 done, 1 bad input or failure, 2 bad command line, 130 cancelled (Ctrl-C).`;
 
-type ValueFlag = 'out' | 'k' | 'seed' | 'restarts' | 'progress';
-const VALUE_FLAGS: readonly ValueFlag[] = ['out', 'k', 'seed', 'restarts', 'progress'];
+type ValueFlag = 'out' | 'k' | 'seed' | 'restarts' | 'progress' | 'compose' | 'scale' | 'impute' | 'subject' | 'recipe' | PipelineFlag;
+const VALUE_FLAGS: readonly ValueFlag[] = ['out', 'k', 'seed', 'restarts', 'progress', 'compose', 'scale', 'impute', 'subject', 'recipe', ...PIPELINE_FLAGS];
 
 /** Parses the arguments after `gleaner`; throws UsageError with a one-line message. */
 export function parseArgs(argv: readonly string[]): Command {
@@ -54,8 +86,10 @@ export function parseArgs(argv: readonly string[]): Command {
 
   const values: Partial<Record<ValueFlag, string>> = {};
   const positionals: string[] = [];
+  let events = false;
   for (let i = 0; i < rest.length; i++) {
     const arg = rest[i];
+    if (arg === '--events') { events = true; continue; }
     if (!arg.startsWith('-') || arg === '-') {
       positionals.push(arg);
       continue;
@@ -85,7 +119,35 @@ export function parseArgs(argv: readonly string[]): Command {
     seed: integerOption('seed', values.seed, DEFAULT_ANALYSIS_PARAMS.seed, 0),
     restarts: integerOption('restarts', values.restarts, DEFAULT_ANALYSIS_PARAMS.restarts, 1),
     progress: progressOption(values.progress),
+    ...(values.compose !== undefined ? { compose: composeOption(values.compose) } : {}),
+    ...recipeOptions(values),
+    ...pipelineOptions(values),
+    ...(events ? { events: true } : {}),
   };
+}
+
+function recipeOptions(values: Partial<Record<ValueFlag, string>>): Pick<AnalyzeOptions, 'scale' | 'impute' | 'subject' | 'recipe'> {
+  const out: Pick<AnalyzeOptions, 'scale' | 'impute' | 'subject' | 'recipe'> = {};
+  if (values.recipe !== undefined) {
+    const clash = values.scale !== undefined ? 'scale' : values.impute !== undefined ? 'impute' : undefined;
+    if (clash) throw new UsageError(`--recipe and --${clash} cannot be combined: put the ${clash} step in the recipe file`);
+    out.recipe = values.recipe;
+  }
+  if (values.scale !== undefined) out.scale = choice('scale', values.scale, SCALE_CHOICES);
+  if (values.impute !== undefined) out.impute = choice('impute', values.impute, IMPUTE_CHOICES);
+  if (values.subject !== undefined) out.subject = values.subject;
+  return out;
+}
+
+function choice<T extends string>(name: string, text: string, allowed: readonly T[]): T {
+  if (!(allowed as readonly string[]).includes(text)) throw new UsageError(`invalid --${name} "${text}": expected one of ${allowed.join(', ')}`);
+  return text as T;
+}
+
+function composeOption(text: string): string[] {
+  const names = text.split(',').map((s) => s.trim());
+  if (names.some((s) => s === '')) throw new UsageError(`invalid --compose "${text}": expected column names separated by commas`);
+  return [...new Set(names)];
 }
 
 function integerOption(name: string, text: string | undefined, fallback: number, min: number): number {

@@ -1,78 +1,99 @@
 import type { AnalysisParams, AnalysisResult, FeatureMatrix } from './analysis.types';
-import { centreConfidence } from './cluster/confidence';
-import { kmeans } from './cluster/kmeans';
-import { relabelBySize } from './cluster/relabel';
-import { pca } from './embed/pca';
 import { OptionError } from './errors';
 import type { JobContext } from './job';
 import { sampleIndices } from './metrics/sample';
 import { mean, silhouetteSamples } from './metrics/silhouette';
+import { pipelineChoices, requestedK, type PipelineChoices } from './pipeline/choices';
+import { clusterStage } from './pipeline/cluster-stage';
+import { embedStage } from './pipeline/embed-stage';
+import { mapQuality } from './pipeline/quality';
 import { seededRandom } from './random';
-import { baselineRecipe } from './recipe/baseline';
+import { applyRecipe } from './recipe/apply';
+import { parseRecipe } from './recipe/parse-recipe';
+import type { RecipeCache } from './recipe/recipe-cache';
+import { DEFAULT_RECIPE } from './recipe/recipe.types';
 
-/** Relative k-means tolerance (centre shift against mean feature variance), common practice. */
-const KMEANS_TOL = 1e-4;
+type Span = readonly [number, number];
+type StageName = 'scaling' | 'embedding' | 'quality' | 'clustering' | 'silhouette';
 
-/** Share of the job's progress bar each stage takes, in order. */
-const STAGES = { scaling: [0, 0.05], embedding: [0.05, 0.15], clustering: [0.15, 0.9], silhouette: [0.9, 1] } as const;
+/** Share of the job's progress bar each stage takes, in order: PCA runs as in the first slice. */
+const PCA_STAGES: Record<StageName, Span> = { scaling: [0, 0.05], embedding: [0.05, 0.15], quality: [0.15, 0.15], clustering: [0.15, 0.9], silhouette: [0.9, 1] };
+const LAYOUT_STAGES: Record<StageName, Span> = { scaling: [0, 0.02], embedding: [0.02, 0.8], quality: [0.8, 0.86], clustering: [0.86, 0.98], silhouette: [0.98, 1] };
 
 function isInt(v: unknown): v is number {
   return typeof v === 'number' && Number.isInteger(v);
 }
 
 /** Checks analysis parameters against each other and the matrix; throws OptionError or Error. */
-export function validateAnalysis(matrix: FeatureMatrix, params: AnalysisParams): void {
-  const { k, seed, restarts, maxIterations, silhouetteSample } = params;
-  if (!isInt(k) || k < 2) throw new OptionError('k', k, 'an integer of at least 2');
+export function validateAnalysis(matrix: FeatureMatrix, params: AnalysisParams): PipelineChoices {
+  const { seed, silhouetteSample } = params;
   if (typeof seed !== 'number' || !Number.isFinite(seed)) throw new OptionError('seed', seed, 'a finite number');
-  if (!isInt(restarts) || restarts < 1) throw new OptionError('restarts', restarts, 'an integer of at least 1');
-  if (!isInt(maxIterations) || maxIterations < 1) throw new OptionError('maxIterations', maxIterations, 'an integer of at least 1');
   if (!isInt(silhouetteSample) || silhouetteSample < 2) throw new OptionError('silhouetteSample', silhouetteSample, 'an integer of at least 2');
+  const choices = pipelineChoices(params);
   const { n, d, data } = matrix;
   if (!isInt(n) || !isInt(d) || d < 1 || data.length !== n * d) {
     throw new Error(`feature matrix shape does not fit its data: n = ${n}, d = ${d}, ${data.length} values`);
   }
   if (n < 2) throw new Error(`found ${n} window${n === 1 ? '' : 's'}; an analysis needs at least 2 windows`);
-  if (n < k) throw new OptionError('k', k, `at most the number of windows: found ${n} windows, k = ${k} needs at least ${k}`);
+  const k = requestedK(choices.cluster);
+  if (k !== undefined && n < k) throw new OptionError('k', k, `at most the number of windows: found ${n} windows, k = ${k} needs at least ${k}`);
+  return choices;
+}
+
+/** After the recipe: no missing value may remain, and enough windows must remain for k clusters. */
+function checkPrepared(p: { data: Float64Array; n: number; featureNames: string[]; d: number }, k: number | undefined): void {
+  for (let i = 0; i < p.data.length; i++) {
+    if (p.data[i] !== p.data[i]) {
+      throw new OptionError('recipe', `missing value left in feature "${p.featureNames[i % p.d]}"`, 'a recipe that fills or drops every missing value (add an impute or drop-missing step)');
+    }
+  }
+  if (k !== undefined && p.n < k) throw new OptionError('k', k, `at most the number of windows the recipe keeps (${p.n})`);
 }
 
 /**
- * The baseline analysis: z-score + mean imputation, PCA to 2-D for the map, k-means with
- * k-means++ seeding and restarts in the scaled feature space, per-window confidence, and the
- * mean silhouette on a seeded sample. Same matrix, params and seed give identical results.
+ * The analysis: the recipe (by default z-score + mean imputation), the map (PCA, t-SNE or UMAP,
+ * with sample-then-place for large studies), its quality, flat clusters (k-means or a tree cut) in
+ * feature or map space, per-window confidence, and the mean silhouette (scaled features) on a
+ * seeded sample. Same matrix, params and seed give identical results. `cache` keeps recipe step
+ * results between runs on the same matrix (only the changed steps re-run).
  */
-export async function analyze(matrix: FeatureMatrix, params: AnalysisParams, ctx: JobContext): Promise<AnalysisResult> {
-  validateAnalysis(matrix, params);
-  const { n, d } = matrix;
-  const { k, restarts, maxIterations, silhouetteSample } = params;
+export async function analyze(matrix: FeatureMatrix, params: AnalysisParams, ctx: JobContext, cache?: RecipeCache): Promise<AnalysisResult> {
+  const choices = validateAnalysis(matrix, params);
   const random = seededRandom(params.seed);
-  const stage = (name: keyof typeof STAGES, f: number) => {
-    const [a, b] = STAGES[name];
-    ctx.progress(name, a + (b - a) * f);
+  const spans = choices.embed.method === 'pca' ? PCA_STAGES : LAYOUT_STAGES;
+  const stage = (name: StageName, f: number, label: string = name) => {
+    const [a, b] = spans[name];
+    ctx.progress(label, a + (b - a) * f);
   };
 
   stage('scaling', 0);
-  const { data, recipe } = baselineRecipe(matrix);
+  // Payloads are an edge: a recipe that came through a job is validated here.
+  const steps = params.recipe === undefined ? DEFAULT_RECIPE : parseRecipe(params.recipe);
+  const prepared = await applyRecipe(matrix, { subjectCodes: matrix.subjectCodes }, steps, undefined, cache);
+  const { data, n, d, records: recipe } = prepared;
+  checkPrepared(prepared, requestedK(choices.cluster));
   await ctx.checkpoint();
 
   stage('embedding', 0);
-  const p = pca(data, n, d, 2);
-  const coords = new Float32Array(2 * n);
-  for (let i = 0; i < n; i++) {
-    coords[2 * i] = p.scores[i * p.nComponents];
-    coords[2 * i + 1] = p.nComponents > 1 ? p.scores[i * p.nComponents + 1] : 0;
-  }
-  const ratios = [p.explainedVarianceRatio[0], p.nComponents > 1 ? p.explainedVarianceRatio[1] : 0];
+  const subjectCodes = matrix.subjectCodes && (n < matrix.n ? Int32Array.from(prepared.windows, (w) => matrix.subjectCodes![w]) : matrix.subjectCodes);
+  const embedded = await embedStage({ data, n, d, subjectCodes, seed: params.seed }, choices, ctx, (label, f) => stage('embedding', f, label));
+  const { coords } = embedded;
   await ctx.checkpoint();
 
+  let embed = embedded.record;
+  if (choices.quality) {
+    stage('quality', 0);
+    embed = { ...embed, ...mapQuality(data, n, d, coords, params.seed, embed.method === 'umap' ? embed.metric : 'euclidean') };
+    await ctx.checkpoint();
+  }
+
   stage('clustering', 0);
-  const km = await kmeans(data, n, d, { k, restarts, maxIterations, tol: KMEANS_TOL, random }, ctx, (f) => stage('clustering', f));
-  const { labels, centres, sizes } = relabelBySize(km.labels, km.centres, k, d);
-  const confidence = centreConfidence(data, n, d, centres, k);
+  const c = await clusterStage({ data, n, d, coords, seed: params.seed }, choices, random, ctx, (f) => stage('clustering', f));
+  const { labels } = c;
   await ctx.checkpoint();
 
   stage('silhouette', 0);
-  const sample = sampleIndices(n, silhouetteSample, random);
+  const sample = sampleIndices(n, params.silhouetteSample, random);
   const m = sample.length;
   const sampled = new Float64Array(m * d);
   const sampledLabels = new Int32Array(m);
@@ -85,16 +106,16 @@ export async function analyze(matrix: FeatureMatrix, params: AnalysisParams, ctx
 
   return {
     recipe,
-    embed: { method: 'pca', components: 2, explainedVarianceRatio: ratios },
+    ...(n < matrix.n ? { windows: prepared.windows } : {}),
+    embed,
+    ...(embedded.placed ? { placed: embedded.placed } : {}),
+    ...(c.tree ? { tree: c.tree, treeLeafOf: c.treeLeafOf } : {}),
     coords,
-    cluster: {
-      method: 'kmeans', k, restarts, maxIterations, init: 'k-means++',
-      iterations: km.iterations, inertia: km.inertia, converged: km.converged,
-    },
+    cluster: c.record,
     labels,
-    confidence,
-    centroids: centres,
-    sizes,
+    confidence: c.confidence,
+    centroids: c.centroids,
+    sizes: c.sizes,
     metrics: { silhouette, silhouetteSampleSize: m },
   };
 }

@@ -10,6 +10,11 @@ describe('parseArgs(argv)', () => {
     });
   });
 
+  it('reads --compose as a comma-separated list of columns, duplicates dropped', () => {
+    expect(parseArgs(['analyze', 'w.csv', '--out', 'o', '--compose', 'device, site,device'])).toMatchObject({ compose: ['device', 'site'] });
+    expect(() => parseArgs(['analyze', 'w.csv', '--out', 'o', '--compose', 'device,,site'])).toThrow(/invalid --compose/);
+  });
+
   it('fills unset options from the analysis defaults', () => {
     const c = parseArgs(['analyze', '--out', 'o', 'w.csv']);
     expect(c).toMatchObject({ k: DEFAULT_ANALYSIS_PARAMS.k, seed: DEFAULT_ANALYSIS_PARAMS.seed, restarts: DEFAULT_ANALYSIS_PARAMS.restarts });

@@ -30,10 +30,12 @@ describe('analyze(matrix, params, ctx)', () => {
     expect(r.recipe.map((s) => s.step)).toEqual(['zscore', 'impute']);
     expect(r.coords).toHaveLength(300);
     // Standardized iris PCA: PC1+PC2 ≈ 72.96% + 22.85% (R prcomp(scale. = TRUE), from memory).
+    if (r.embed.method !== 'pca') throw new Error(`expected a PCA map, got ${r.embed.method}`);
     expect(r.embed.explainedVarianceRatio[0]).toBeCloseTo(0.7296, 3);
     expect(r.embed.explainedVarianceRatio[1]).toBeCloseTo(0.2285, 3);
     // Standardized iris, k = 3: best inertia 139.82 (scikit-learn KMeans on StandardScaler'd iris, from memory;
     // a nearby local optimum, 139.8254, is what some seeds reach).
+    if (r.cluster.method !== 'kmeans') throw new Error(`expected k-means, got ${r.cluster.method}`);
     expect(r.cluster.inertia).toBeCloseTo(139.8205, 3);
     expect(Array.from(r.sizes)).toEqual([53, 50, 47]);
     expect(r.sizes.reduce((a, b) => a + b, 0)).toBe(150);

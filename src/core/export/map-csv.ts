@@ -8,12 +8,14 @@ export const MAP_CSV_HEADER = ['id', 'subject', 'start', 'end', 'x', 'y', 'clust
 
 /**
  * The CLI's per-window table: identity columns, map coordinates, cluster index (0-based) and
- * confidence. Numbers are formatted deterministically, so the same run gives the same bytes.
+ * confidence, then `placed` (1 = placed from its sampled neighbours, 0 = embedded) only when the
+ * run sampled. Numbers are formatted deterministically, so the same run gives the same bytes.
  */
 export function mapCsv(args: { table: Table; roles: Roles; result: AnalysisResult }): string {
   const { table, roles, result } = args;
   const w = windowColumns(table, roles);
   const rows: (string | number)[][] = new Array(table.nRows);
+  const placed = result.placed;
   for (let i = 0; i < table.nRows; i++) {
     rows[i] = [
       w.id(i),
@@ -25,6 +27,7 @@ export function mapCsv(args: { table: Table; roles: Roles; result: AnalysisResul
       String(result.labels[i]),
       formatNumber(result.confidence[i], 4),
     ];
+    if (placed) rows[i].push(String(placed[i]));
   }
-  return toCsv(MAP_CSV_HEADER, rows);
+  return toCsv(placed ? [...MAP_CSV_HEADER, 'placed'] : MAP_CSV_HEADER, rows);
 }

@@ -40,7 +40,8 @@ export function buildProvenance(p: ProvenanceInput): Record<string, unknown> {
     roles: p.roles.map((r) => ({ column: r.name, role: r.role })),
     recipe: result.recipe.map((s) => ({ step: s.step, params: s.params, effect: s.effect })),
     embed: { ...result.embed, seed: params.seed },
-    cluster: { ...result.cluster, seed: params.seed, silhouetteSample: params.silhouetteSample },
+    cluster: { space: 'features', ...result.cluster, seed: params.seed, silhouetteSample: params.silhouetteSample },
+    ...(result.placed ? { placedWindows: result.placed.reduce((s, v) => s + v, 0) } : {}),
     seed: params.seed,
     metrics: { ...result.metrics },
     clusters: Array.from(result.sizes, (size, id) => ({

@@ -5,13 +5,15 @@ import { formatNumber, toCsv } from './csv';
 import { windowColumns } from './window-columns';
 
 export const WEAK_LABELS_HEADER = [
-  'window_id', 'subject', 'session', 'start', 'end', 'cluster', 'class_name', 'confidence',
+  'window_id', 'subject', 'session', 'start', 'end', 'cluster', 'class_name', 'confidence', 'set_aside',
 ];
 
 /**
  * Per-window weak labels: the window's identity (from the column roles; '' where a role has no
  * column), its cluster index, the class name the user gave that cluster ('' while it is still a
- * candidate) and the assignment confidence.
+ * candidate) and the assignment confidence, then set_aside (1 when the window's cluster was set
+ * aside as noise: its class name is then blank; else 0). With curation, pass the curated `labels`
+ * (one per table row) and the per-cluster `setAside` flags; confidence stays the run's own.
  */
 export function weakLabelsCsv(args: {
   table: Table;
@@ -19,12 +21,19 @@ export function weakLabelsCsv(args: {
   result: AnalysisResult;
   /** Class name per cluster index; '' or missing for an unnamed candidate. */
   clusterNames: readonly (string | undefined)[];
+  /** Cluster per window after curation; the run's labels when absent. */
+  labels?: Int32Array;
+  /** Set-aside flag per cluster index; none set aside when absent. */
+  setAside?: readonly boolean[];
 }): string {
   const { table, roles, result, clusterNames } = args;
+  const labels = args.labels ?? result.labels;
+  if (labels.length !== table.nRows) throw new Error(`weakLabelsCsv: ${labels.length} labels for ${table.nRows} windows`);
   const w = windowColumns(table, roles);
   const rows: (string | number)[][] = new Array(table.nRows);
   for (let i = 0; i < table.nRows; i++) {
-    const cluster = result.labels[i];
+    const cluster = labels[i];
+    const aside = args.setAside?.[cluster] === true;
     rows[i] = [
       w.id(i),
       w.subject(i),
@@ -32,8 +41,9 @@ export function weakLabelsCsv(args: {
       w.start(i),
       w.end(i),
       String(cluster),
-      clusterNames[cluster] ?? '',
+      aside ? '' : (clusterNames[cluster] ?? ''),
       formatNumber(result.confidence[i], 4),
+      aside ? '1' : '0',
     ];
   }
   return toCsv(WEAK_LABELS_HEADER, rows);

@@ -51,14 +51,23 @@ describe('weakLabelsCsv({ table, roles, result, clusterNames })', () => {
   it('writes the weak-label columns from the roles, blank where a role has no column', () => {
     const csv = weakLabelsCsv({ table, roles, result, clusterNames: ['walking'] });
     expect(csv.split('\n')).toEqual([
-      'window_id,subject,session,start,end,cluster,class_name,confidence',
-      'a1,S01,,0,5,0,walking,0.75',
+      'window_id,subject,session,start,end,cluster,class_name,confidence,set_aside',
+      'a1,S01,,0,5,0,walking,0.75,0',
       // RFC 4180 §2 rules 6-7: the comma and the quote force quoting, quotes doubled;
       // confidence to 4 significant digits.
-      '"a,2",S01,,5,10,0,walking,0.1235',
+      '"a,2",S01,,5,10,0,walking,0.1235,0',
       // end = start + duration, with enough digits for epoch seconds; cluster 1 is an unnamed candidate.
-      '"a""3",S02,,1700000000.25,1700000000.75,1,,1',
+      '"a""3",S02,,1700000000.25,1700000000.75,1,,1,0',
       '',
+    ]);
+  });
+
+  it('writes curated labels and set_aside = 1 (with a blank class) for windows of a set-aside cluster', () => {
+    const csv = weakLabelsCsv({ table, roles, result, clusterNames: ['walking', 'noise'], labels: Int32Array.from([1, 0, 1]), setAside: [false, true] });
+    expect(csv.split('\n').slice(1, 4)).toEqual([
+      'a1,S01,,0,5,1,,0.75,1',
+      '"a,2",S01,,5,10,0,walking,0.1235,0',
+      '"a""3",S02,,1700000000.25,1700000000.75,1,,1,1',
     ]);
   });
 });

@@ -1,0 +1,30 @@
+import type { ClusterNote, CurationState } from './curation.types';
+
+export function emptyNote(): ClusterNote {
+  return { name: '', colour: '', description: '', setAside: false, className: '', mergedInto: -1 };
+}
+
+/** The state before any curation: the run's labels (copied) and k blank clusters. */
+export function initialCuration(labels: Int32Array, k: number): CurationState {
+  for (let i = 0; i < labels.length; i++) {
+    if (!(labels[i] >= 0 && labels[i] < k)) throw new Error(`initialCuration: label ${labels[i]} of window ${i} is outside 0..${k - 1}`);
+  }
+  return { labels: labels.slice(), clusters: Array.from({ length: k }, emptyNote) };
+}
+
+/** Windows per cluster index. */
+export function clusterSizes(state: CurationState): Int32Array {
+  const sizes = new Int32Array(state.clusters.length);
+  for (let i = 0; i < state.labels.length; i++) sizes[state.labels[i]]++;
+  return sizes;
+}
+
+/** Class name per cluster ('' for candidates and for clusters set aside), for exports. */
+export function classNames(state: CurationState): string[] {
+  return state.clusters.map((c) => (c.setAside ? '' : c.className));
+}
+
+/** Set-aside flag per cluster, for exports. */
+export function setAsideFlags(state: CurationState): boolean[] {
+  return state.clusters.map((c) => c.setAside);
+}

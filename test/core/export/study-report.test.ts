@@ -1,0 +1,49 @@
+import { describe, expect, it } from 'vitest';
+import { escapeHtml, safeSvg, studyReportHtml } from '../../../src/core/export/study-report';
+
+describe('studyReportHtml', () => {
+  const html = studyReportHtml({
+    title: 'Study <script>alert(1)</script>',
+    appVersion: '1.2.3',
+    createdAt: '2026-01-01T00:00:00Z',
+    clusters: [
+      { id: 0, name: 'a & b', className: 'walking', size: 12, colour: '#e69f00', setAside: false, flags: ['subject-bound'] },
+      { id: 1, name: '"x"', className: '', size: 3, colour: 'red;background:url(x)', setAside: true, flags: [] },
+    ],
+    metrics: { silhouette: 0.4321, subjectNMI: NaN },
+    figures: [
+      { title: 'Map', svg: '<svg xmlns="http://www.w3.org/2000/svg"><circle r="2"/></svg>' },
+      { title: 'Bad', svg: '<svg onload="alert(1)"></svg>' },
+    ],
+    cautions: ['Research aid, not a diagnosis.'],
+    provenance: { input: { sha256: 'ab' } },
+  });
+
+  it('escapes everything taken from the study, and has no scripts or external resources', () => {
+    expect(html).not.toMatch(/<script/i);
+    expect(html).toContain('Study &lt;script&gt;alert(1)&lt;/script&gt;');
+    expect(html).toContain('a &amp; b');
+    expect(html).toContain('&quot;x&quot;');
+    expect(html).not.toContain('url(x)');
+    expect(html).not.toMatch(/https?:\/\/(?!www\.w3\.org\/2000\/svg)/);
+  });
+
+  it('holds the cluster table, metrics, cautions, provenance and the safe figures only', () => {
+    expect(html).toContain('<circle r="2"/>');
+    expect(html).not.toContain('onload');
+    expect(html).toContain('figure left out');
+    expect(html).toContain('<td>walking</td><td class="num">12</td><td>subject-bound</td>');
+    expect(html).toContain('set aside');
+    expect(html).toContain('<td>0.4321</td>');
+    expect(html).toContain('<td>n/a</td>');
+    expect(html).toContain('Research aid, not a diagnosis.');
+    expect(html).toContain('&quot;sha256&quot;: &quot;ab&quot;');
+  });
+
+  it('escapeHtml and safeSvg', () => {
+    expect(escapeHtml(`<a href='x'>&</a>`)).toBe('&lt;a href=&#39;x&#39;&gt;&amp;&lt;/a&gt;');
+    expect(safeSvg('<svg><script>1</script></svg>')).toBeNull();
+    expect(safeSvg('<svg><a href="javascript:1"/></svg>')).toBeNull();
+    expect(safeSvg('<div></div>')).toBeNull();
+  });
+});
