@@ -9,6 +9,15 @@ export const INVOKE_CHANNELS = {
   openWindowsFile: 'gleaner:open-windows-file',
   loadDemo: 'gleaner:load-demo',
   saveFiles: 'gleaner:save-files',
+  chooseRawFolder: 'gleaner:choose-raw-folder',
+  demoRawFolder: 'gleaner:demo-raw-folder',
+  readRaw: 'gleaner:read-raw',
+  saveStudy: 'gleaner:save-study',
+  openStudy: 'gleaner:open-study',
+  recentStudies: 'gleaner:recent-studies',
+  writeAutosave: 'gleaner:write-autosave',
+  readAutosave: 'gleaner:read-autosave',
+  clearAutosave: 'gleaner:clear-autosave',
 } as const;
 
 export type InvokeMethod = keyof typeof INVOKE_CHANNELS;

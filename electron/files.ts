@@ -9,8 +9,9 @@ import { homedir } from 'node:os';
 import { basename, join, sep } from 'node:path';
 import { app, dialog, type BrowserWindow, type OpenDialogOptions } from 'electron';
 import { writeFileAtomic } from './atomic-write.ts';
-import type { BridgeOpenedFile, BridgeSaveOutcome } from './bridge.types.ts';
+import type { BridgeOpenedFile, BridgeRawFolder, BridgeSaveOutcome } from './bridge.types.ts';
 import type { InputGuard } from './input-guard.ts';
+import type { RawFolders } from './raw-folders.ts';
 import { PayloadError, type SaveRequest } from './validate.ts';
 
 /** Largest windows table read through the bridge (bytes). */
@@ -102,4 +103,22 @@ export async function saveFiles(win: BrowserWindow | null, guard: InputGuard, re
   }
   for (const file of request.files) await writeFileAtomic(join(folder, file.name), file.data);
   return { location: friendly(folder), names: request.files.map((f) => f.name) };
+}
+
+/** Asks for a folder of raw-signal files and remembers it; null when the user cancels. */
+export async function chooseRawFolder(win: BrowserWindow | null, folders: RawFolders): Promise<BridgeRawFolder | null> {
+  const options: OpenDialogOptions = {
+    title: 'Choose the folder of raw-signal files (EDF or CSV)',
+    buttonLabel: 'Use this folder',
+    properties: ['openDirectory'],
+  };
+  const picked = win ? await dialog.showOpenDialog(win, options) : await dialog.showOpenDialog(options);
+  if (picked.canceled || picked.filePaths.length === 0) return null;
+  return folders.add(picked.filePaths[0]);
+}
+
+/** The demo study's raw signals next to the app (demo-data/raw), or null when they were not generated. */
+export async function demoRawFolder(folders: RawFolders): Promise<BridgeRawFolder | null> {
+  const path = join(app.getAppPath(), 'demo-data', 'raw');
+  return existsSync(path) ? folders.add(path) : null;
 }

@@ -23,6 +23,32 @@ function inside(root, urlPath) {
   return full === root || full.startsWith(root + sep) ? full : null;
 }
 
+/** Largest byte range served in one answer (the readers ask for a few records at a time). */
+const MAX_RANGE_BYTES = 64 * 1024 * 1024;
+
+/**
+ * One byte range "bytes=a-b", "bytes=a-" or "bytes=-n" clipped to the file, or null when it is
+ * malformed, asks for several ranges, starts past the end or is larger than MAX_RANGE_BYTES.
+ * @param {string} header
+ * @param {number} size
+ * @returns {{ start: number, end: number } | null}
+ */
+export function parseRange(header, size) {
+  const m = /^bytes=(\d*)-(\d*)$/.exec(header.trim());
+  if (!m || (m[1] === '' && m[2] === '') || size === 0) return null;
+  let start, end;
+  if (m[1] === '') {
+    start = Math.max(0, size - Number(m[2]));
+    end = size - 1;
+  } else {
+    start = Number(m[1]);
+    end = m[2] === '' ? size - 1 : Math.min(Number(m[2]), size - 1);
+  }
+  if (!Number.isSafeInteger(start) || !Number.isSafeInteger(end) || start > end || start >= size) return null;
+  if (end - start + 1 > MAX_RANGE_BYTES) return null;
+  return { start, end };
+}
+
 /**
  * @param {{ port?: number, root?: string, demoDir?: string }} options
  * @returns {Promise<{ url: string, close: () => Promise<void> }>}
@@ -40,12 +66,28 @@ export function serveApp({ port = 0, root = 'dist/renderer', demoDir = 'demo-dat
       res.end('not found');
       return;
     }
-    res.writeHead(200, {
+    const headers = {
       'content-type': TYPES[extname(file)] ?? 'application/octet-stream',
       'cache-control': 'no-store',
+      'accept-ranges': 'bytes',
       // The app loads nothing from the network: say so to the browser as well.
       'content-security-policy': "default-src 'self'; img-src 'self' data: blob:; style-src 'self' 'unsafe-inline'; worker-src 'self' blob:; connect-src 'self'",
-    });
+    };
+    const size = statSync(file).size;
+    const rangeHeader = req.headers.range;
+    if (rangeHeader !== undefined) {
+      // The Traces view reads raw files in pieces: one byte range per request (RFC 9110 §14).
+      const range = parseRange(rangeHeader, size);
+      if (range === null) {
+        res.writeHead(416, { ...headers, 'content-range': `bytes */${size}` });
+        res.end();
+        return;
+      }
+      res.writeHead(206, { ...headers, 'content-range': `bytes ${range.start}-${range.end}/${size}`, 'content-length': range.end - range.start + 1 });
+      createReadStream(file, { start: range.start, end: range.end }).pipe(res);
+      return;
+    }
+    res.writeHead(200, { ...headers, 'content-length': size });
     createReadStream(file).pipe(res);
   });
   return new Promise((resolvePromise, reject) => {

@@ -1,7 +1,11 @@
-import type { FileToWrite, Host, OpenedFile, SaveOutcome } from './host';
+import * as study from './browser-study';
+import { MAX_LOOSE_DOWNLOADS, zipFiles } from './browser-study';
+import { chooseBrowserRawFolder } from './raw-browser';
+import { httpRawFolder } from './raw-http';
+import type { FileToWrite, Host, SaveOutcome, StreamedFile } from './host';
 
-/** Accepted extensions for windows tables, for the file pickers. */
-const ACCEPT = ['.csv', '.tsv', '.txt'];
+/** Accepted extensions for windows tables, for the file pickers: text, Parquet and Arrow IPC. */
+const ACCEPT = ['.csv', '.tsv', '.txt', '.parquet', '.arrow', '.feather', '.ipc'];
 
 interface PickerWindow {
   showOpenFilePicker?: (options: {
@@ -11,8 +15,9 @@ interface PickerWindow {
   }) => Promise<{ getFile(): Promise<File> }[]>;
 }
 
-async function fromFile(file: File): Promise<OpenedFile> {
-  return { name: file.name, bytes: new Uint8Array(await file.arrayBuffer()) };
+/** The picked file as it is: the worker reads it in slices, the page never reads it whole. */
+function fromFile(file: File): StreamedFile {
+  return { name: file.name, blob: file };
 }
 
 /** Opens the browser's file chooser through a hidden <input type=file>; null when cancelled. */
@@ -38,7 +43,7 @@ async function pickWithPicker(picker: NonNullable<PickerWindow['showOpenFilePick
   try {
     const [handle] = await picker({
       multiple: false,
-      types: [{ description: 'Windows table', accept: { 'text/csv': ['.csv'], 'text/tab-separated-values': ['.tsv', '.txt'] } }],
+      types: [{ description: 'Windows table', accept: { 'text/csv': ['.csv'], 'text/tab-separated-values': ['.tsv', '.txt'], 'application/octet-stream': ['.parquet', '.arrow', '.feather', '.ipc'] } }],
     });
     return handle ? await handle.getFile() : null;
   } catch (err) {
@@ -85,11 +90,25 @@ export function browserHost(options: BrowserHostOptions = {}): Host {
       const url = new URL('demo/windows.csv', document.baseURI);
       const response = await fetch(url);
       if (!response.ok) throw new Error(`the demo study could not be read from ${url.pathname} (HTTP ${response.status})`);
-      return { name: 'windows.csv', bytes: new Uint8Array(await response.arrayBuffer()) };
+      return { name: 'windows.csv', blob: await response.blob() };
     },
-    async saveFiles(_suggestedFolder: string, files: FileToWrite[]): Promise<SaveOutcome | null> {
+    async saveFiles(suggestedFolder: string, files: FileToWrite[]): Promise<SaveOutcome | null> {
+      // Browsers drop rapid bursts of downloads: many files travel as one ZIP "folder".
+      if (files.length > MAX_LOOSE_DOWNLOADS) {
+        const name = `${suggestedFolder || 'gleaner'}-export.zip`;
+        download({ name, data: zipFiles(files) });
+        return { location: `your downloads folder (${name})`, names: files.map((f) => f.name) };
+      }
       for (const f of files) download(f);
       return { location: 'your downloads folder', names: files.map((f) => f.name) };
     },
+    saveStudy: (suggestedName, bytes) => study.saveStudyDownload(suggestedName, bytes),
+    openStudy: () => study.openStudyWithInput(),
+    recentStudies: () => study.recentStudies(),
+    writeAutosave: (entry) => study.writeAutosave(entry),
+    readAutosave: (key) => study.readAutosave(key),
+    clearAutosave: (key) => study.clearAutosave(key),
+    chooseRawFolder: () => chooseBrowserRawFolder(preferPicker),
+    demoRawFolder: () => Promise.resolve(httpRawFolder(new URL('demo/raw/', document.baseURI), "the demo's raw signals")),
   };
 }

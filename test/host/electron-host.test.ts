@@ -32,6 +32,34 @@ function fakeBridge(overrides: Partial<ElectronBridge> = {}) {
       listeners.push(listener);
       return () => listeners.splice(listeners.indexOf(listener), 1);
     },
+    saveStudy: async (name: string, bytes: Uint8Array, saveAs: boolean) => {
+      calls.push({ method: 'saveStudy', args: [name, bytes, saveAs] });
+      return { name, location: `/studies/${name}` };
+    },
+    openStudy: async (recent: string | null) => {
+      calls.push({ method: 'openStudy', args: [recent] });
+      return null;
+    },
+    recentStudies: async () => ['a.gleaner'],
+    writeAutosave: async (entry) => {
+      calls.push({ method: 'writeAutosave', args: [entry] });
+    },
+    readAutosave: async (key: string | null) => {
+      calls.push({ method: 'readAutosave', args: [key] });
+      return null;
+    },
+    clearAutosave: async (key: string) => {
+      calls.push({ method: 'clearAutosave', args: [key] });
+    },
+    chooseRawFolder: async () => {
+      calls.push({ method: 'chooseRawFolder', args: [] });
+      return { id: 3, label: 'raw', files: [{ name: 'S01.edf', size: 10 }] };
+    },
+    demoRawFolder: async () => null,
+    readRaw: async (folderId: number, name: string, offset: number, length: number) => {
+      calls.push({ method: 'readRaw', args: [folderId, name, offset, length] });
+      return Uint8Array.from({ length }, (_, i) => offset + i);
+    },
     ...overrides,
   };
   return { bridge, calls, listeners };
@@ -79,6 +107,25 @@ describe('electronHost(bridge)', () => {
   });
 });
 
+describe('electronHost raw folders', () => {
+  it('lists the folder main chose and reads files by id and base name, clipped to their size', async () => {
+    const { bridge, calls } = fakeBridge();
+    const folder = await electronHost(bridge).chooseRawFolder();
+    expect(folder?.names).toEqual(['S01.edf']);
+    expect(await folder!.open('S02.edf')).toBeNull();
+    const source = await folder!.open('raw/S01.edf');
+    expect(source?.size).toBe(10);
+    expect([...(await source!.read(8, 100))]).toEqual([8, 9]);
+    expect((await source!.read(10, 5)).length).toBe(0);
+    // One clipped block read for both: the adapter caches blocks of the file.
+    expect(calls.filter((c) => c.method === 'readRaw')).toEqual([{ method: 'readRaw', args: [3, 'S01.edf', 0, 10] }]);
+  });
+
+  it('returns null when main has no demo raw folder', async () => {
+    expect(await electronHost(fakeBridge().bridge).demoRawFolder()).toBeNull();
+  });
+});
+
 describe('unwrapRemoteError(err)', () => {
   it('keeps other errors as they are and wraps non-errors', () => {
     const plain = new Error('disk full');
@@ -90,7 +137,11 @@ describe('unwrapRemoteError(err)', () => {
 
 describe('channel list (electron/channels.ts)', () => {
   it('has one distinct channel per bridge request method', () => {
-    const methods: (keyof ElectronBridge)[] = ['openWindowsFile', 'loadDemo', 'saveFiles'];
+    const methods: (keyof ElectronBridge)[] = [
+      'openWindowsFile', 'loadDemo', 'saveFiles',
+      'saveStudy', 'openStudy', 'recentStudies', 'writeAutosave', 'readAutosave', 'clearAutosave',
+      'chooseRawFolder', 'demoRawFolder', 'readRaw',
+    ];
     expect(Object.keys(INVOKE_CHANNELS).sort()).toEqual([...methods].sort());
     const names = [...Object.values(INVOKE_CHANNELS), MENU_CHANNEL];
     expect(new Set(names).size).toBe(names.length);
