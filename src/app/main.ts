@@ -10,5 +10,6 @@ installTestHook(app);
 const host = app.host;
 host.onMenuCommand?.((command) => void (command === 'open' ? app.openFromHost() : app.exportLabels()));
 mount(App, { target: document.getElementById('app')!, props: { app } });
+void app.studyFile.start();
 
 if (new URLSearchParams(location.search).get('demo') === '1') void app.openDemo(true);

@@ -18,6 +18,8 @@ export interface RunningJob<R> {
 /** Starts jobs on a job host and routes its messages back to each job's promise. */
 export class JobClient {
   private nextId = 1;
+  /** Jobs started since this client was made, by job name (tests check that reopening a study computes nothing). */
+  readonly started: Record<string, number> = {};
   private readonly pending = new Map<
     number,
     { resolve: (v: unknown) => void; reject: (e: Error) => void; onProgress?: (p: Progress) => void; onPartial?: (value: unknown) => void }
@@ -33,6 +35,7 @@ export class JobClient {
     options: { onProgress?: (p: Progress) => void; onPartial?: (value: unknown) => void; transfer?: Transferable[] } = {},
   ): RunningJob<R> {
     const id = this.nextId++;
+    this.started[job] = (this.started[job] ?? 0) + 1;
     const result = new Promise<R>((resolve, reject) => {
       this.pending.set(id, { resolve: resolve as (v: unknown) => void, reject, onProgress: options.onProgress, onPartial: options.onPartial });
     });

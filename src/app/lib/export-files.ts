@@ -1,8 +1,14 @@
 import { buildProvenance } from '../../core/export/provenance';
 import { weakLabelsCsv } from '../../core/export/weak-labels';
+import { DEFAULT_RECIPE, type Recipe } from '../../core/recipe/recipe.types';
 import type { Table } from '../../core/table/table';
 import type { FileToWrite } from '../../host/host';
 import type { Run, Source } from '../state/study.svelte';
+import { CAUTIONS } from '../../core/cautions';
+import { studyExports } from '../../core/export/study-exports';
+import { studyReportHtml, type ReportCluster, type ReportFigure } from '../../core/export/study-report';
+import type { Study } from '../../core/study/study.types';
+import { mapPng, mapSvg, type MapFigureInput } from './map-figure';
 
 /** The file name without its last extension ("windows.csv" → "windows"). */
 export function baseName(fileName: string): string {
@@ -16,23 +22,122 @@ export function weakLabelFiles(args: {
   table: Table;
   run: Run;
   clusterNames: string[];
+  /** Curated cluster per window and set-aside flag per cluster (curation.svelte.ts); the run's own when absent. */
+  labels?: Int32Array;
+  setAside?: boolean[];
   appVersion: string;
   createdAt: string;
 }): FileToWrite[] {
   const { source, table, run, clusterNames } = args;
-  const csv = weakLabelsCsv({ table, roles: run.roles, result: run.result, clusterNames });
+  // Curated labels cover every table row only when the recipe dropped no window.
+  const labels = args.labels && args.labels.length === table.nRows ? args.labels : undefined;
+  const csv = weakLabelsCsv({ table, roles: run.roles, result: run.result, clusterNames, labels, setAside: args.setAside });
+  const sizes = labels ? curatedSizes(labels, clusterNames.length) : run.result.sizes;
   const provenance = buildProvenance({
     input: { fileName: source.fileName, sha256: source.sha256, rows: table.nRows, features: run.featureNames.length },
     roles: run.roles,
     params: run.params,
-    result: run.result,
+    result: { ...run.result, sizes },
     clusterNames,
     appVersion: args.appVersion,
     createdAt: args.createdAt,
   });
   const base = baseName(source.fileName);
+  const withRecipe = withRecipeSpec(provenance, run.params.recipe ?? DEFAULT_RECIPE);
   return [
     { name: `${base}-weak-labels.csv`, data: csv },
-    { name: `${base}-provenance.json`, data: `${JSON.stringify(provenance, null, 2)}\n` },
+    { name: `${base}-provenance.json`, data: `${JSON.stringify(withRecipe, null, 2)}\n` },
   ];
+}
+
+/** Windows per curated cluster. */
+function curatedSizes(labels: Int32Array, k: number): Int32Array {
+  const sizes = new Int32Array(k);
+  for (let i = 0; i < labels.length; i++) if (labels[i] >= 0 && labels[i] < k) sizes[labels[i]]++;
+  return sizes;
+}
+
+/**
+ * Adds `recipeSpec` right after `recipe` (the steps as applied, with their effects): the recipe as
+ * the user wrote it, `{ "version": 1, "steps": [...] }`, which `gleaner analyze --recipe` reads back.
+ */
+function withRecipeSpec(provenance: Record<string, unknown>, recipe: Recipe): Record<string, unknown> {
+  const out: Record<string, unknown> = {};
+  for (const [key, value] of Object.entries(provenance)) {
+    out[key] = value;
+    if (key === 'recipe') out.recipeSpec = recipe;
+  }
+  if (!('recipeSpec' in out)) out.recipeSpec = recipe;
+  return out;
+}
+
+/** What the Export dialog writes: the study exports of the shown run, the report and the figures. */
+export interface ExportChoice {
+  events: boolean;
+  report: boolean;
+  mapSvg: boolean;
+  mapPng: boolean;
+  /** SVG figures of other views on screen (elements marked data-figure="<title>"). */
+  viewFigures: boolean;
+}
+
+/** The figures other views offer: each view marks its <svg> with data-figure="<title>". */
+export function viewFigures(root: ParentNode = document): ReportFigure[] {
+  return [...root.querySelectorAll('svg[data-figure]')].map((el) => {
+    const svg = el.cloneNode(true) as SVGElement;
+    svg.setAttribute('xmlns', 'http://www.w3.org/2000/svg');
+    return { title: el.getAttribute('data-figure') ?? 'figure', svg: svg.outerHTML };
+  });
+}
+
+/** A plain file name from a figure title ("Mix: subject" → "mix-subject"). */
+function slug(title: string): string {
+  return title.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'figure';
+}
+
+export async function exportDialogFiles(args: {
+  doc: Study;
+  table: Table;
+  choice: ExportChoice;
+  map: MapFigureInput;
+  clusters: ReportCluster[];
+  appVersion: string;
+  createdAt: string;
+}): Promise<FileToWrite[]> {
+  const { doc, choice } = args;
+  const run = doc.runs[doc.activeRun];
+  if (!run) throw new Error('there is no run to export: press Run first');
+  const files: FileToWrite[] = studyExports({
+    study: doc, run: doc.activeRun, table: args.table, appVersion: args.appVersion, createdAt: args.createdAt, events: choice.events,
+  });
+  const base = baseName(doc.inputs[run.input].fileName);
+  const map = mapSvg(args.map);
+  const figures: ReportFigure[] = [{
+    title: 'Map',
+    svg: map.svg,
+    caption: map.shown < map.total ? `Sampled: ${map.shown} of ${map.total} windows drawn.` : `${map.total} windows.`,
+  }];
+  const others = choice.viewFigures ? viewFigures() : [];
+  if (choice.mapSvg) files.push({ name: `${base}-map.svg`, data: map.svg });
+  if (choice.mapPng) files.push({ name: `${base}-map.png`, data: await mapPng(args.map) });
+  for (const f of others) files.push({ name: `${base}-${slug(f.title)}.svg`, data: f.svg });
+  if (choice.report) {
+    const provenanceFile = files.find((f) => f.name.endsWith('-provenance.json'));
+    const provenance: unknown = provenanceFile ? JSON.parse(String(provenanceFile.data)) : {};
+    files.push({
+      name: `${base}-report.html`,
+      data: studyReportHtml({
+        title: `Gleaner study of ${doc.inputs[run.input].fileName}`,
+        appVersion: args.appVersion,
+        createdAt: args.createdAt,
+        clusters: args.clusters,
+        metrics: { windows: args.table.nRows, k: run.result.cluster.k, 'mean silhouette': run.result.metrics.silhouette, seed: Number(run.params.seed) },
+        figures: [...figures, ...others],
+        cautions: CAUTIONS,
+        provenance,
+        notes: doc.notes,
+      }),
+    });
+  }
+  return files;
 }

@@ -98,7 +98,6 @@ export class Rasterizer {
   private g: Float64Array = new Float64Array(0);
   private opaque: Uint32Array = new Uint32Array(0);
   private seen: Uint8Array = new Uint8Array(0);
-  private seenFor: Int32Array | null = null;
 
   /** Clears the buffer to one packed colour. */
   clear(buf: PixelBuffer, colour: number): void {
@@ -206,12 +205,11 @@ export class Rasterizer {
   }
 
   private resetSeen(labels: Int32Array): void {
-    // Cluster ids are small (k): size the table once per labels array, then only clear it.
-    if (labels !== this.seenFor) {
-      let max = -1;
-      for (let i = 0; i < labels.length; i++) if (labels[i] > max) max = labels[i];
-      this.seen = new Uint8Array(max + 1);
-      this.seenFor = labels;
-    } else this.seen.fill(0);
+    // Cluster ids are small (k). The labels array may be refilled in place (a new tree cut, a
+    // merge), so its largest id is found every frame (one pass), and the table grows when needed.
+    let max = -1;
+    for (let i = 0; i < labels.length; i++) if (labels[i] > max) max = labels[i];
+    if (max + 1 > this.seen.length) this.seen = new Uint8Array(max + 1);
+    else this.seen.fill(0);
   }
 }

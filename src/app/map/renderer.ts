@@ -1,5 +1,6 @@
 import type { Colouring } from './colouring';
 import { drawOrder, permute, permutePairs } from './draw-order';
+import { placedIndex, withPlacedColours } from './placed';
 import { BACKGROUND, pointStyle } from './point-style';
 import { Rasterizer, type DrawStats, type PixelBuffer, type RasterStyle } from './raster';
 import type { MapView } from './view';
@@ -27,6 +28,10 @@ export class MapRenderer {
   private styleKey = '';
   private palette: Uint32Array = new Uint32Array(1);
   private readonly transform = { a: 1, bx: 0, by: 0 };
+  /** Placed windows (drawing order) and the lighter colouring built from them; null = none placed. */
+  private placed: Uint8Array | null = null;
+  private srcPlaced: Uint8Array | null = null;
+  private placedColours: { src: Uint32Array; index: Uint16Array; palette: Uint32Array } | null = null;
 
   /** New coordinates and clusters (a new run): rebuilds the drawing order. */
   setPoints(coords: Float32Array, labels: Int32Array): void {
@@ -41,10 +46,20 @@ export class MapRenderer {
     }
     this.srcIndex = null;
     this.srcSelection = null;
+    this.srcPlaced = null;
+    this.placed = null;
     permutePairs(coords, this.order, this.coords);
     permute(labels, this.order, this.labels);
     this.srcCoords = coords;
     this.srcLabels = labels;
+  }
+
+  /** Windows placed from sampled neighbours (1 = placed), drawn lighter; null when none were. */
+  setPlaced(mask: Uint8Array | null): void {
+    if (mask === this.srcPlaced) return;
+    this.srcPlaced = mask;
+    this.placedColours = null;
+    this.placed = mask && mask.length === this.order.length ? permute(mask, this.order, new Uint8Array(mask.length)) : null;
   }
 
   /** A new colouring (recolour): re-orders its index array into the reused buffer. */
@@ -74,9 +89,18 @@ export class MapRenderer {
       this.image = new ImageData(w, h);
       this.buf = { pixels: new Uint32Array(this.image.data.buffer), width: w, height: h };
     }
-    const key = `${this.order.length}:${dpr}`;
-    if (key !== this.styleKey || !this.style) {
-      this.style = pointStyle(this.order.length, dpr, this.palette);
+    let palette = this.palette, colourIndex: Uint8Array | Uint16Array = this.colourIndex;
+    if (this.placed) {
+      let pc = this.placedColours;
+      if (!pc || pc.src !== this.palette || pc.index.length !== this.colourIndex.length) {
+        pc = this.placedColours = { src: this.palette, palette: withPlacedColours(this.palette), index: new Uint16Array(this.colourIndex.length) };
+      }
+      palette = pc.palette;
+      colourIndex = placedIndex(this.colourIndex, this.placed, this.palette.length, pc.index);
+    }
+    const key = `${this.order.length}:${dpr}:${palette.length}:${this.placed ? 1 : 0}`;
+    if (key !== this.styleKey || !this.style || this.style.palette !== palette) {
+      this.style = pointStyle(this.order.length, dpr, palette);
       this.styleKey = key;
     }
     const buf = this.buf!;
@@ -87,7 +111,7 @@ export class MapRenderer {
     t.by = (view.height / 2 + view.centreY * view.scale) * dpr;
     const stats = this.raster.draw(buf, {
       coords: this.coords,
-      colourIndex: this.colourIndex,
+      colourIndex,
       labels: this.labels,
       selection: this.hasSelection ? this.selection : null,
     }, t, this.style);

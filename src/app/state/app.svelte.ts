@@ -1,5 +1,5 @@
-import type { AnalysisResult } from '../../core/analysis.types';
-import type { Host, OpenedFile } from '../../host/host';
+import type { AnalysisPartial, AnalysisResult } from '../../core/analysis.types';
+import type { Host, InputFile } from '../../host/host';
 import type { JobClient, RunningJob } from '../../worker/client';
 import type { ParseResult } from '../../worker/jobs';
 import { version } from '../../../package.json';
@@ -7,13 +7,23 @@ import { featureMatrix } from '../../core/table/matrix';
 import { isoNow } from '../lib/clock';
 import { describeError, isCancelled } from '../lib/errors';
 import { weakLabelFiles } from '../lib/export-files';
-import { ownBuffer, sha256Hex } from '../lib/hash';
+import { ownBuffer } from '../lib/hash';
+import { QualityState } from '../views/quality/quality-state.svelte';
+import { Curation } from './curation.svelte';
 import { DockState } from './dock.svelte';
+import { LiveLayout } from './live-layout.svelte';
 import { MapState } from './map.svelte';
+import { placedNote, runDescription } from './run-text';
 import { RunParams } from './params.svelte';
+import { matrixKey, recipeInput, RecipeState } from './recipe.svelte';
+import { Runs } from './runs.svelte';
 import { Selection } from './selection.svelte';
 import { Status } from './status.svelte';
+import { StudyFile } from './study-file.svelte';
 import { Study } from './study.svelte';
+import { TracesState } from './traces.svelte';
+import { SweepState } from './sweep.svelte';
+import { TreeCut } from './tree-cut.svelte';
 import { startWorker } from './worker-client';
 
 /**
@@ -27,6 +37,15 @@ export class AppState {
   readonly status = new Status();
   readonly map = new MapState();
   readonly dock = new DockState();
+  readonly recipe = new RecipeState();
+  readonly quality = new QualityState((job, payload) => this.client.run(job, payload));
+  readonly traces = new TracesState();
+  readonly live = new LiveLayout();
+  readonly runs: Runs;
+  readonly curation: Curation;
+  readonly studyFile: StudyFile;
+  readonly treeCut: TreeCut;
+  readonly sweep: SweepState;
   aboutOpen = $state(false);
   /** Completed runs since start (tests wait on it). */
   runCount = $state(0);
@@ -35,6 +54,11 @@ export class AppState {
 
   constructor(readonly host: Host) {
     this.client = startWorker((message) => this.status.fail('The compute worker stopped', message, 'Reload the window to continue.'));
+    this.runs = new Runs(this, this.client);
+    this.curation = new Curation(this, this.client);
+    this.studyFile = new StudyFile(this);
+    this.treeCut = new TreeCut(this, this.client);
+    this.sweep = new SweepState(this, this.client);
   }
 
   async openFromHost(): Promise<void> {
@@ -55,32 +79,38 @@ export class AppState {
     }
   }
 
-  /** Parses a file in the worker; replaces the study only when the file loaded cleanly. */
-  async openFile(file: OpenedFile): Promise<boolean> {
+  /**
+   * Parses a file in the worker; replaces the study only when the file loaded cleanly. A File/Blob
+   * goes to the worker as it is and is read there slice by slice (progress = bytes read), so this
+   * thread never holds the file; bytes read by the host (Electron) are transferred. Cancel stops it.
+   */
+  async openFile(file: InputFile): Promise<boolean> {
     this.cancel();
     this.current = null;
     this.status.dismissError();
     this.status.start(`Reading ${file.name}…`);
     let job: RunningJob<ParseResult> | null = null;
+    const size = 'blob' in file ? file.blob.size : file.bytes.length;
     try {
-      const sha256 = await sha256Hex(file.bytes);
-      const bytes = ownBuffer(file.bytes);
-      job = this.client.run<ParseResult>('parse', { fileName: file.name, bytes }, {
-        transfer: [bytes.buffer],
-        onProgress: (p) => this.status.progress(p.stage, p.fraction),
+      const bytes = 'blob' in file ? null : ownBuffer(file.bytes);
+      job = this.client.run<ParseResult>('parse', bytes ? { fileName: file.name, bytes } : { fileName: file.name, blob: (file as { blob: Blob }).blob }, {
+        transfer: bytes ? [bytes.buffer] : [],
+        onProgress: (p) => this.status.progress(p.stage === 'reading' ? `reading ${mib(p.fraction * size)} of ${mib(size)}` : p.stage, p.fraction),
       });
       this.current = job;
-      const { table, roles } = await job.result;
+      const { table, roles, warnings, sha256 } = await job.result;
       if (this.current !== job) return false; // superseded by a newer action
       featureMatrix(table, roles); // the same check Run makes: fail now, not later
-      this.study.load({ fileName: file.name, sha256, bytes: file.bytes.length }, table, roles);
+      this.study.load({ fileName: file.name, sha256, bytes: size }, table, roles);
+      this.quality.reset(warnings.map((w) => w.message));
       this.selection.clear();
       const features = roles.filter((r) => r.role === 'feature').length;
-      this.status.finish(`Loaded ${file.name}: ${table.nRows} windows, ${features} features. Check the column roles, then Run.`);
+      const warned = warnings.length ? ` ${warnings.length} warning${warnings.length === 1 ? '' : 's'} (see Quality): ${warnings[0].message}` : '';
+      this.status.finish(`Loaded ${file.name}: ${table.nRows} windows, ${features} features. Check the column roles, then Run.${warned}`);
       return true;
     } catch (err) {
       if (job && this.current !== job) return false;
-      if (isCancelled(err)) this.status.finish(`Opening ${file.name} was cancelled.`);
+      if (isCancelled(err)) this.status.finish(`Opening ${file.name} was cancelled. ${this.keptMessage()}`);
       else this.status.fail(`Could not load ${file.name}`, describeError(err, file.name), this.keptMessage());
       return false;
     } finally {
@@ -96,16 +126,23 @@ export class AppState {
     let matrix, params;
     const roles = $state.snapshot(this.study.roles);
     try {
-      params = this.params.toParams();
-      matrix = featureMatrix(table, roles);
+      params = { ...this.params.toParams(), recipe: this.recipe.toRecipe() };
+      matrix = recipeInput(table, roles).matrix;
     } catch (err) {
       this.status.fail('Cannot run', describeError(err, source.fileName), 'Fix the roles or parameters, then Run again.');
       return;
     }
     const featureNames = matrix.featureNames;
-    this.status.start(`Running PCA and k-means (k = ${params.k}, ${params.restarts} restarts) on ${matrix.n} windows…`);
-    const job = this.client.run<AnalysisResult>('analyze', { matrix, params }, {
-      onProgress: (p) => this.status.progress(p.stage, p.fraction),
+    this.status.start(`Running ${runDescription(params)} on ${matrix.n} windows…`);
+    this.live.start(performance.now());
+    const job = this.client.run<AnalysisResult>('analyze', { matrix, params, cacheKey: matrixKey(source.sha256, roles) }, {
+      onProgress: (p) => {
+        this.status.progress(p.stage, p.fraction);
+        this.live.tick(performance.now(), p.fraction);
+      },
+      onPartial: (value) => {
+        if (this.current === job) this.live.offer(value as AnalysisPartial);
+      },
     });
     this.current = job;
     try {
@@ -116,13 +153,16 @@ export class AppState {
       this.map.fitNext = true;
       this.runCount++;
       const sil = result.metrics.silhouette;
-      this.status.finish(`${result.cluster.k} clusters in ${matrix.n} windows · silhouette ${Number.isFinite(sil) ? sil.toFixed(2) : 'n/a'} · seed ${params.seed}`);
+      this.status.finish(`${result.cluster.k} clusters in ${matrix.n} windows · silhouette ${Number.isFinite(sil) ? sil.toFixed(2) : 'n/a'} · seed ${params.seed}${placedNote(result)}`);
     } catch (err) {
       if (this.current !== job) return; // superseded: the newer action reports its own status
       if (isCancelled(err)) this.status.finish(`Run cancelled. ${this.study.run ? 'The previous map is kept.' : ''}`.trim());
       else this.status.fail('The run failed', describeError(err, source.fileName), this.keptMessage());
     } finally {
-      if (this.current === job) this.current = null;
+      if (this.current === job) {
+        this.current = null;
+        this.live.stop();
+      }
     }
   }
 
@@ -136,7 +176,9 @@ export class AppState {
     try {
       const files = weakLabelFiles({
         source, table, run,
-        clusterNames: $state.snapshot(this.study.clusterNames),
+        clusterNames: this.curation.classNames(),
+        labels: this.curation.labels ?? undefined,
+        setAside: this.curation.setAside(),
         appVersion: version,
         createdAt: isoNow(),
       });
@@ -148,7 +190,17 @@ export class AppState {
     }
   }
 
+  /** Jobs started by name since start (the test hook shows them). */
+  get jobsStarted(): Readonly<Record<string, number>> {
+    return this.client.started;
+  }
+
   private keptMessage(): string {
     return this.study.source ? `Kept the previous study (${this.study.source.fileName}).` : 'Nothing was opened.';
   }
+}
+
+/** Bytes as MiB with one decimal, for the loading progress. */
+function mib(bytes: number): string {
+  return `${(bytes / 1048576).toFixed(1)} MiB`;
 }

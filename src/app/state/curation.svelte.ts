@@ -1,0 +1,214 @@
+import {
+  canRedo, canUndo, classNames, clusterSizes, createHistory, initialCuration, record, redo, setAsideFlags, undo,
+  type ClusterNote, type CurationAction, type CurationState, type History,
+} from '../../core/curation';
+import { SvelteMap } from 'svelte/reactivity';
+import { featureMatrix } from '../../core/table/matrix';
+import type { JobClient } from '../../worker/client';
+import { describeError, isCancelled } from '../lib/errors';
+import { categoryColour, MISSING_COLOUR } from '../lib/palette';
+import type { Colouring } from '../map/colouring';
+import { packHex } from '../map/raster';
+import type { AppState } from './app.svelte';
+import type { Run } from './study.svelte';
+
+/** Up to this many clusters get their own Map colour slot (the Map's colour index is one byte). */
+const MAP_SLOTS = 255;
+
+/** Recorded curation of one run, as the study file keeps it. */
+export interface RecordedCuration {
+  actions: CurationAction[];
+  undone: CurationAction[];
+}
+
+/**
+ * The curation of the runs in the study: one undo/redo History per run (so a kept run keeps its
+ * names and merges when shown again). Every view reads the shown run's clusters here: the curated
+ * label of each window, the display name and colour of each cluster, which are set aside.
+ */
+export class Curation {
+  /** Histories of runs that were curated (a reactive map: views update on every change). */
+  private readonly histories = new SvelteMap<Run, History>();
+  /** Blank histories of runs not curated yet (not reactive: they never change). */
+  private readonly blank = new WeakMap<Run, History>();
+  private readonly sizeCache = new WeakMap<CurationState, Int32Array>();
+  /** Bumped by every change (autosave watches it). */
+  revision = $state(0);
+  /** A split is running in the worker. */
+  splitting = $state(false);
+
+  constructor(private readonly app: AppState, private readonly client: JobClient) {
+    app.study.namer = (c) => this.displayName(c);
+  }
+
+  /** The shown run's history (a blank one until the first change). */
+  get history(): History | null {
+    const run = this.app.study.run;
+    if (!run) return null;
+    const h = this.histories.get(run);
+    if (h) return h;
+    let b = this.blank.get(run);
+    if (!b) {
+      b = createHistory(initialCuration(run.result.labels, run.result.cluster.k));
+      this.blank.set(run, b);
+    }
+    return b;
+  }
+
+  get state(): CurationState | null {
+    return this.history?.present ?? null;
+  }
+
+  /** Curated cluster per analysed window (the run's labels before any change). */
+  get labels(): Int32Array | null {
+    return this.state?.labels ?? null;
+  }
+
+  get clusters(): readonly Readonly<ClusterNote>[] {
+    return this.state?.clusters ?? [];
+  }
+
+  get sizes(): Int32Array {
+    const s = this.state;
+    if (!s) return new Int32Array(0);
+    let sizes = this.sizeCache.get(s);
+    if (!sizes) {
+      sizes = clusterSizes(s);
+      this.sizeCache.set(s, sizes);
+    }
+    return sizes;
+  }
+
+  /** Indices of clusters still in use (not emptied by a merge or a move). */
+  get live(): number[] {
+    const sizes = this.sizes;
+    return this.clusters.flatMap((c, i) => (c.mergedInto < 0 && sizes[i] > 0 ? [i] : []));
+  }
+
+  get canUndo(): boolean {
+    const h = this.history;
+    return !!h && canUndo(h);
+  }
+
+  get canRedo(): boolean {
+    const h = this.history;
+    return !!h && canRedo(h);
+  }
+
+  /** The name shown for a cluster: its class name, else its working name, else "candidate N". */
+  displayName(c: number): string {
+    const note = this.clusters[c];
+    return note?.className || note?.name || `candidate ${c + 1}`;
+  }
+
+  /** The colour chosen for a cluster, else its palette colour (what the colour picker shows). */
+  chosenColour(c: number): string {
+    return this.clusters[c]?.colour || categoryColour(c);
+  }
+
+  /** The colour every view draws a cluster in: light grey once set aside, else its chosen colour. */
+  colour(c: number): string {
+    return this.clusters[c]?.setAside ? MISSING_COLOUR : this.chosenColour(c);
+  }
+
+  /** Class name per cluster ('' for candidates and set-aside clusters), for exports. */
+  classNames(): string[] {
+    const s = this.state;
+    return s ? classNames(s) : [];
+  }
+
+  setAside(): boolean[] {
+    const s = this.state;
+    return s ? setAsideFlags(s) : [];
+  }
+
+  /** Applies one change to the shown run; returns false (and reports why) when it does not fit. */
+  apply(action: CurationAction): boolean {
+    const run = this.app.study.run, h = this.history;
+    if (!run || !h) return false;
+    try {
+      this.commit(run, record(h, action));
+      return true;
+    } catch (err) {
+      this.app.status.fail('That change could not be made', describeError(err, 'curation'), 'The clusters are as they were.');
+      return false;
+    }
+  }
+
+  undo(): void {
+    const run = this.app.study.run, h = this.history;
+    if (run && h && canUndo(h)) this.commit(run, undo(h));
+  }
+
+  redo(): void {
+    const run = this.app.study.run, h = this.history;
+    if (run && h && canRedo(h)) this.commit(run, redo(h));
+  }
+
+  /** What the study file records for a run. */
+  recorded(run: Run): RecordedCuration {
+    const h = this.histories.get(run);
+    return { actions: h ? [...h.done] : [], undone: h ? [...h.undone] : [] };
+  }
+
+  /** Rebuilds a run's history from a study file: the actions done, then those undone (redo still works). */
+  restore(run: Run, rec: RecordedCuration): void {
+    let h = createHistory(initialCuration(run.result.labels, run.result.cluster.k));
+    for (const a of rec.actions) h = record(h, a);
+    // `undone` lists the most recently undone last: redo replays it from the end.
+    for (let i = rec.undone.length - 1; i >= 0; i--) h = record(h, rec.undone[i]);
+    for (let i = 0; i < rec.undone.length; i++) h = undo(h);
+    this.commit(run, h);
+  }
+
+  /** Splits a cluster into k parts: k-means on its windows in the worker, then one 'split' action. */
+  async split(cluster: number, k: number): Promise<void> {
+    const { table, run } = this.app.study;
+    const labels = this.labels;
+    if (!table || !run || !labels || this.splitting) return;
+    const members: number[] = [];
+    for (let i = 0; i < labels.length; i++) if (labels[i] === cluster) members.push(i);
+    this.splitting = true;
+    this.app.status.start(`Splitting ${this.displayName(cluster)} (${members.length} windows) into ${k}…`);
+    try {
+      const matrix = featureMatrix(table, run.roles);
+      const job = this.client.run<Int32Array>('split', { matrix, params: run.params, members: Int32Array.from(members), k }, {
+        onProgress: (p) => this.app.status.progress(p.stage, p.fraction),
+      });
+      const parts = await job.result;
+      if (this.app.study.run !== run || this.labels !== labels) {
+        this.app.status.finish('The split was dropped: the clusters changed while it ran.');
+        return;
+      }
+      if (this.apply({ type: 'split', cluster, k, parts })) this.app.status.finish(`Split ${this.displayName(cluster)} into ${k} clusters.`);
+    } catch (err) {
+      if (isCancelled(err)) this.app.status.finish('Split cancelled.');
+      else this.app.status.fail('The split failed', describeError(err, this.app.study.source?.fileName ?? 'study'), 'The clusters are as they were.');
+    } finally {
+      this.splitting = false;
+    }
+  }
+
+  /** The Map's colouring by curated cluster: chosen colours, set-aside clusters grey, emptied ones left out of the legend. */
+  colouring(): Colouring | null {
+    const labels = this.labels;
+    if (!labels) return null;
+    const n = this.clusters.length;
+    const slots = Math.min(n, MAP_SLOTS);
+    const palette = new Uint32Array(slots + 1);
+    for (let c = 0; c < slots; c++) palette[c] = packHex(this.colour(c));
+    palette[slots] = packHex(MISSING_COLOUR);
+    const index = new Uint8Array(labels.length);
+    for (let i = 0; i < labels.length; i++) index[i] = labels[i] < 0 ? slots : labels[i] % MAP_SLOTS;
+    const entries = this.live.map((c) => ({
+      name: this.clusters[c].setAside ? `${this.displayName(c)} (set aside)` : this.displayName(c),
+      colour: this.colour(c),
+    }));
+    return { index, palette, legend: { kind: 'categories', title: 'cluster', entries } };
+  }
+
+  private commit(run: Run, h: History): void {
+    this.histories.set(run, h);
+    this.revision++;
+  }
+}

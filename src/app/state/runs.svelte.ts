@@ -1,0 +1,164 @@
+import type { AnalysisResult } from '../../core/analysis.types';
+import { columnWithRole } from '../../core/export/window-columns';
+import type { RunProfile } from '../../core/profile/profile';
+import { subjectCodes } from '../../core/recipe/subject-codes';
+import { featureMatrix } from '../../core/table/matrix';
+import { findColumn } from '../../core/table/table';
+import type { JobClient } from '../../worker/client';
+import { describeError, isCancelled } from '../lib/errors';
+import { recipeText, subjectScaledRecipe } from '../views/runs/recipe-text';
+import { tableLabels } from '../views/runs/run-rows';
+import type { AppState } from './app.svelte';
+import type { Run } from './study.svelte';
+
+/** One run kept in the study: its name, what it was run with and its result. */
+export interface KeptRun {
+  id: number;
+  name: string;
+  run: Run;
+  /** Cluster names given while this run was shown (restored when it is shown again). */
+  names: string[];
+}
+
+/** Figures the views drew last, for the status line and the end-to-end tests. */
+export interface DrawnFigures {
+  mixBars: number;
+  mixSegments: number;
+  mixBound: number;
+  fingerprintCells: number;
+  timelineStrips: number;
+  timelineWindows: number;
+  contingencyCells: number;
+  /** ARI of the comparison on screen (NaN when none). */
+  comparisonAri: number;
+}
+
+/** A name for a new run: "run 2 · k = 7 · per-subject z-score → impute (mean)". */
+export function runName(id: number, run: Run): string {
+  return `run ${id} · k = ${run.params.k} · ${recipeText(run.params.recipe)}`;
+}
+
+/**
+ * The runs kept in the study and what the Mix, Fingerprints, Timeline and runs views need from
+ * the worker: the profile of the shown run (composition by a column, fingerprints, label
+ * agreement) and the re-run with per-subject scaling. `study.run` stays the shown run;
+ * `study.kept` lists every run.
+ */
+export class Runs {
+  /** Column the Mix composes clusters by; '' = the subject column. */
+  composeBy = $state('');
+  /** Id of the kept run compared with the shown one (null: no comparison). */
+  compareWith = $state<number | null>(null);
+  /** Profile of the shown run for `composeBy`, once the worker returns it. */
+  profile = $state.raw<RunProfile | null>(null);
+  profiling = $state(false);
+  profileError = $state('');
+  drawn = $state<DrawnFigures>({
+    mixBars: 0, mixSegments: 0, mixBound: 0, fingerprintCells: 0, timelineStrips: 0, timelineWindows: 0, contingencyCells: 0, comparisonAri: NaN,
+  });
+  private profileKey = '';
+  private profileRequest = 0;
+
+  constructor(private readonly app: AppState, private readonly client: JobClient) {}
+
+  /** The kept entry of the shown run. */
+  get shown(): KeptRun | null {
+    const run = this.app.study.run;
+    return this.app.study.kept.find((k) => k.run === run) ?? null;
+  }
+
+  /** The column the Mix composes by (the subject column when none was chosen). */
+  composeColumnName(): string {
+    const { table } = this.app.study;
+    const run = this.app.study.run;
+    if (!table || !run) return '';
+    if (this.composeBy && findColumn(table, this.composeBy)) return this.composeBy;
+    return run.roles.find((r) => r.role === 'subject')?.name ?? '';
+  }
+
+  /** Asks the worker for the shown run's profile unless it is the one on screen or on its way. */
+  ensureProfile(): void {
+    const { table } = this.app.study;
+    const run = this.app.study.run;
+    const kept = this.shown;
+    if (!table || !run || !kept) { this.profile = null; this.profileKey = ''; return; }
+    const column = this.composeColumnName();
+    const key = `${kept.id}|${column}`;
+    if (key === this.profileKey) return;
+    this.profileKey = key;
+    const request = ++this.profileRequest;
+    this.profile = null;
+    this.profiling = true;
+    this.profileError = '';
+    let matrix;
+    try {
+      matrix = featureMatrix(table, run.roles);
+    } catch (err) {
+      this.profiling = false;
+      this.profileError = describeError(err, table.fileName);
+      return;
+    }
+    const subject = run.roles.find((r) => r.role === 'subject')?.name;
+    const payload = {
+      data: matrix.data, n: matrix.n, d: matrix.d, featureNames: matrix.featureNames,
+      labels: tableLabels(run.result, table.nRows),
+      k: run.result.cluster.k,
+      compose: column ? findColumn(table, column) : undefined,
+      noun: column && column === subject ? 'subject' : column || 'value',
+      label: columnWithRole(table, run.roles, 'label'),
+    };
+    const job = this.client.run<RunProfile>('profile', payload, { transfer: [payload.data.buffer, payload.labels.buffer] });
+    job.result.then(
+      (profile) => { if (request === this.profileRequest) { this.profile = profile; this.profiling = false; } },
+      (err: unknown) => {
+        if (request !== this.profileRequest) return;
+        this.profiling = false;
+        this.profileKey = '';
+        this.profileError = describeError(err, table.fileName);
+      },
+    );
+  }
+
+  /**
+   * Re-runs the shown run with the same parameters and its recipe's scaling done within each
+   * subject, keeps it as a new run, shows it and compares it with the run it came from.
+   */
+  async rerunSubjectScaled(): Promise<void> {
+    const { app } = this;
+    const { table, source } = app.study;
+    const base = this.shown;
+    if (!table || !source || !base || app.status.busy) return;
+    app.status.dismissError();
+    const roles = base.run.roles;
+    const subject = columnWithRole(table, roles, 'subject');
+    if (!subject) {
+      app.status.fail('Cannot scale per subject', `${source.fileName}: no column has the role "subject"; give one that role, then try again.`, 'Nothing was run.');
+      return;
+    }
+    let matrix;
+    try {
+      matrix = featureMatrix(table, roles);
+    } catch (err) {
+      app.status.fail('Cannot run', describeError(err, source.fileName), 'Fix the roles, then try again.');
+      return;
+    }
+    matrix.subjectCodes = subjectCodes(subject).codes;
+    const params = { ...base.run.params, recipe: subjectScaledRecipe(base.run.params.recipe) };
+    app.status.start(`Re-running ${base.name} with per-subject scaling on ${matrix.n} windows…`);
+    try {
+      const job = this.client.run<AnalysisResult>('analyze', { matrix, params }, {
+        onProgress: (p) => app.status.progress(p.stage, p.fraction),
+      });
+      const result = await job.result;
+      app.study.setRun({ result, params, roles, featureNames: matrix.featureNames });
+      this.compareWith = base.id;
+      app.selection.clear();
+      app.map.fitNext = true;
+      app.runCount++;
+      app.status.finish(`Per-subject scaling: ${result.cluster.k} clusters · silhouette ${result.metrics.silhouette.toFixed(2)} · compared with ${base.name}.`);
+    } catch (err) {
+      if (isCancelled(err)) app.status.finish('Re-run cancelled.');
+      else app.status.fail('The re-run failed', describeError(err, source.fileName), `Kept ${base.name}.`);
+    }
+  }
+}

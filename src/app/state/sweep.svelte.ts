@@ -1,0 +1,76 @@
+import type { SweepRow } from '../../core/cluster/sweep';
+import type { JobClient, RunningJob } from '../../worker/client';
+import { describeError, isCancelled } from '../lib/errors';
+import type { AppState } from './app.svelte';
+import { recipeInput } from './recipe.svelte';
+
+/** Range the sweep view offers by default (common practice for a first look: 2 to 12 clusters). */
+export const SWEEP_RANGE = { kMin: 2, kMax: 12, limit: 40 } as const;
+
+/** The k sweep of the shown run's scaled features: one row per k, computed in the worker. */
+export class SweepState {
+  kMin = $state<number>(SWEEP_RANGE.kMin);
+  kMax = $state<number>(SWEEP_RANGE.kMax);
+  rows = $state.raw<SweepRow[]>([]);
+  running = $state(false);
+  stage = $state('');
+  fraction = $state(0);
+  error = $state('');
+  /** Points the sweep charts drew last (the test hook reads it). */
+  drawnPoints = $state(0);
+  /** The run the rows were computed for (rows are dropped when another study is opened). */
+  private forRun: object | null = null;
+  private job: RunningJob<SweepRow[]> | null = null;
+
+  constructor(private readonly app: AppState, private readonly client: JobClient) {}
+
+  /** True when the rows describe the study on screen (same table, recipe and roles). */
+  get current(): boolean {
+    return this.rows.length > 0 && this.forRun === this.app.study.table;
+  }
+
+  async run(): Promise<void> {
+    const { table, run } = this.app.study;
+    if (!table || !run) return;
+    const kMin = Math.round(this.kMin), kMax = Math.round(this.kMax);
+    if (!(kMin >= 2 && kMax >= kMin && kMax - kMin < SWEEP_RANGE.limit)) {
+      this.error = `Choose k from 2 up, with at most ${SWEEP_RANGE.limit} values of k.`;
+      return;
+    }
+    this.job?.cancel();
+    this.error = '';
+    this.running = true;
+    this.fraction = 0;
+    const job = this.client.run<SweepRow[]>('sweep', { matrix: recipeInput(table, run.roles).matrix, params: run.params, kMin, kMax }, {
+      onProgress: (p) => {
+        this.stage = p.stage;
+        this.fraction = p.fraction;
+      },
+    });
+    this.job = job;
+    try {
+      const rows = await job.result;
+      if (this.job !== job) return;
+      this.rows = rows;
+      this.forRun = table;
+    } catch (err) {
+      if (this.job === job && !isCancelled(err)) this.error = describeError(err, this.app.study.source?.fileName ?? 'study');
+    } finally {
+      if (this.job === job) {
+        this.job = null;
+        this.running = false;
+      }
+    }
+  }
+
+  cancel(): void {
+    this.job?.cancel();
+  }
+
+  /** Uses k for the next run (k-means k, or the tree cut) and runs again. */
+  async choose(k: number): Promise<void> {
+    this.app.params.k = k;
+    if (this.app.params.cluster !== 'kmeans') this.app.params.cutBy = 'k';
+    await this.app.runAnalysis();
+  }
+}

@@ -1,0 +1,43 @@
+import type { AnalysisParams, FeatureMatrix } from '../core/analysis.types';
+import { centreConfidence } from '../core/cluster/confidence';
+import { OptionError } from '../core/errors';
+import type { JobContext } from '../core/job';
+import { clusterMeans } from '../core/pipeline/cluster-stage';
+import { recipeData } from './recipe-data';
+
+export interface RecutJob {
+  /** The run's feature matrix (before its recipe) and parameters. */
+  matrix: FeatureMatrix;
+  params: AnalysisParams;
+  /** The new cut: cluster per analysed window, 0..k-1. */
+  labels: Int32Array;
+  /** Map coordinates, used when the run clustered in map space. */
+  coords: Float32Array;
+}
+
+export interface RecutResult {
+  confidence: Float32Array;
+  /** k × d means of the scaled features. */
+  centroids: Float64Array;
+}
+
+/**
+ * What a new cut of the tree changes besides the labels: per-window confidence (1 − d1/d2 to the
+ * cluster means in the clustered space, as the run computes it) and the cluster means.
+ */
+export async function recutJob(job: RecutJob, ctx: JobContext): Promise<RecutResult> {
+  const { matrix, params, labels, coords } = job;
+  ctx.progress('scaling', 0);
+  const { data, n, d } = await recipeData(matrix, params);
+  if (labels.length !== n) throw new OptionError('labels', labels.length, `one label per analysed window (${n})`);
+  let k = 0;
+  for (let i = 0; i < n; i++) if (labels[i] + 1 > k) k = labels[i] + 1;
+  await ctx.checkpoint();
+  ctx.progress('confidence', 0.5);
+  const map = params.space === 'map';
+  const x = map ? Float64Array.from(coords) : data;
+  const dx = map ? 2 : d;
+  const centroids = clusterMeans(data, n, d, labels, k);
+  const confidence = centreConfidence(x, n, dx, map ? clusterMeans(x, n, dx, labels, k) : centroids, k);
+  return { confidence, centroids };
+}
