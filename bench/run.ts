@@ -4,6 +4,11 @@ import { stopMeasuring } from './measure';
 
 const SUITES: Record<string, () => Promise<{ run(quick: boolean): Promise<void> }>> = {
   pipeline: () => import('./suites/pipeline'),
+  load: () => import('./suites/load'),
+  raw: () => import('./suites/raw'),
+  embed: () => import('./suites/embed'),
+  map: () => import('./suites/map'),
+  cluster: () => import('./suites/cluster'),
 };
 
 const args = process.argv.slice(2);
