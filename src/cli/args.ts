@@ -44,6 +44,7 @@ export type Command =
 export const USAGE = `Usage: gleaner analyze <windows.csv> --out <dir> [options]
        gleaner sweep <windows.csv> --k-min 2 --k-max 12 [--json]   (metrics per k; gleaner sweep --help)
        gleaner run <study file> --out <dir>   (reproduce a saved study; gleaner run --help)
+       gleaner inspect <file>   (JSON summary of a windows table or a raw EDF/CSV signal file)
 
 Loads a featurized windows table, scales the features, makes a map of them (PCA, t-SNE or UMAP)
 and clusters them (k-means or a tree). Writes <dir>/windows.csv (id, subject, start, end, x, y, cluster, confidence) and
