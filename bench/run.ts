@@ -9,6 +9,7 @@ const SUITES: Record<string, () => Promise<{ run(quick: boolean): Promise<void> 
   embed: () => import('./suites/embed'),
   map: () => import('./suites/map'),
   cluster: () => import('./suites/cluster'),
+  traces: () => import('./suites/traces'),
 };
 
 const args = process.argv.slice(2);

@@ -1,4 +1,4 @@
-import { parquetMetadata, parquetRead, parquetSchema, type FileMetaData, type SchemaTree } from 'hyparquet';
+import { parquetMetadata, parquetRead, parquetSchema, type FileMetaData, type RowGroup, type SchemaTree } from 'hyparquet';
 import { decompress as decompressZstd } from 'fzstd';
 import { decompressBrotli } from 'hyparquet-compressors/src/brotli.js';
 import { gunzip } from 'hyparquet-compressors/src/gzip.js';
@@ -6,6 +6,7 @@ import { decompressLz4, decompressLz4Raw } from 'hyparquet-compressors/src/lz4.j
 import { InputError } from '../errors';
 import { quietContext, type JobContext } from '../job';
 import { ByteCollector } from './collect-bytes';
+import { decodeNumericChunk, UnsupportedChunk, type NumericType } from './parquet-numeric';
 import { AUTO_FLOAT32_BYTES, DEFAULT_READ_OPTIONS, type ReadOptions, type TableReader } from './reader.types';
 import { roleFromName } from './roles';
 import type { Table, TimeFormat } from './table';
@@ -33,6 +34,18 @@ const PARSERS = {
   timestampFromNanoseconds: (v: bigint) => Number(v) / 1e9,
   dateFromDays: (d: number) => d * 86400,
 };
+
+const NUMERIC = new Set(['FLOAT', 'DOUBLE', 'INT32', 'INT64']);
+const SIGNED_INTS = new Set<string>(['INT_8', 'INT_16', 'INT_32', 'INT_64']);
+
+/** Flat FLOAT/DOUBLE/INT32/INT64 columns without a logical type take the typed-array decoder. */
+function isPlainNumber(node: SchemaTree): boolean {
+  const e = node.element;
+  const logical = e.logical_type;
+  const signedInt = e.converted_type === undefined || SIGNED_INTS.has(e.converted_type);
+  return node.children.length === 0 && e.type !== undefined && NUMERIC.has(e.type) && e.repetition_type !== 'REPEATED' && signedInt &&
+    (logical === undefined || (logical.type === 'INTEGER' && logical.isSigned));
+}
 
 function isTime(node: SchemaTree): boolean {
   const e = node.element;
@@ -78,14 +91,19 @@ export class ParquetReader implements TableReader {
     }
     if (columns.size === 0) throw new InputError({ file: this.fileName, expected: 'at least one column', found: 'a Parquet file without columns' });
     if (nRows === 0) throw new InputError({ file: this.fileName, row: 2, expected: 'at least one data row', found: 'a Parquet file with no rows' });
+    const fast = new Map(schema.children.filter(isPlainNumber).map((n) => [n.element.name, n]));
+    const bytes = new Uint8Array(file);
     let start = 0;
     for (const group of metadata.row_groups) {
       const end = start + Number(group.num_rows);
       try {
-        await parquetRead({
-          file, metadata, rowStart: start, rowEnd: end, compressors, parsers: PARSERS,
-          onChunk: ({ columnName, columnData, rowStart }) => columns.get(columnName)?.set(rowStart, columnData),
-        });
+        const rest = this.decodeNumbers(bytes, group, fast, columns, start);
+        if (rest.length > 0) {
+          await parquetRead({
+            file, metadata, rowStart: start, rowEnd: end, compressors, parsers: PARSERS, columns: rest,
+            onChunk: ({ columnName, columnData, rowStart }) => columns.get(columnName)?.set(rowStart, columnData),
+          });
+        }
       } catch (e) {
         throw this.damaged(e, `row group starting at row ${start + 2}`);
       }
@@ -94,6 +112,34 @@ export class ParquetReader implements TableReader {
       await ctx.checkpoint();
     }
     return { fileName: this.fileName, nRows, columns: [...columns.values()].map((c) => c.finish()) };
+  }
+
+  /**
+   * Decodes the row group's plain numeric columns straight into their typed arrays; returns the
+   * names of the columns left for the general decoder (other types, encodings or codecs).
+   */
+  private decodeNumbers(file: Uint8Array, group: RowGroup, fast: Map<string, SchemaTree>, columns: Map<string, ValueColumn>, row: number): string[] {
+    const rest: string[] = [];
+    for (const [name, column] of columns) {
+      const node = fast.get(name);
+      const meta = group.columns.find((c) => c.meta_data?.path_in_schema.length === 1 && c.meta_data.path_in_schema[0] === name)?.meta_data;
+      if (!node || !meta) {
+        rest.push(name);
+        continue;
+      }
+      const dict = meta.dictionary_page_offset;
+      const begin = Number(dict !== undefined && dict > 0n && dict < meta.data_page_offset ? dict : meta.data_page_offset);
+      try {
+        decodeNumericChunk({
+          file, start: begin, length: Number(meta.total_compressed_size), type: meta.type as NumericType, numValues: Number(meta.num_values),
+          maxDefinition: node.element.repetition_type === 'OPTIONAL' ? 1 : 0, codec: meta.codec, decompress: compressors,
+        }, column.target(), row);
+      } catch (e) {
+        if (!(e instanceof UnsupportedChunk)) throw e;
+        rest.push(name);
+      }
+    }
+    return rest;
   }
 
   private metadata(file: ArrayBuffer): FileMetaData {

@@ -32,6 +32,12 @@ export class ValueColumn {
     }
   }
 
+  /** The numeric storage (created, all NaN, on first use), for decoders that write into it directly. */
+  target(): Float32Array | Float64Array {
+    if (this.codes) throw new Error(`column ${this.name} already holds text`);
+    return this.numeric();
+  }
+
   private numeric(): Float32Array | Float64Array {
     if (!this.values) {
       this.values = this.wide ? new Float64Array(this.nRows) : new Float32Array(this.nRows);

@@ -18,21 +18,49 @@ export function tick(v: number): string {
   return String(Number(v.toPrecision(3)));
 }
 
-/** One channel as a polyline from t0 at `rate`, mapped by the given scales; NaN samples break the line. */
+/**
+ * One channel as a polyline from t0 at `rate`, mapped by the given scales; NaN samples break the
+ * line. Where several samples fall in one device-pixel column, only their lowest and highest (in
+ * the order they occur) are drawn: the same picture with far fewer segments for dense signals.
+ */
 export function drawChannel(ctx: CanvasRenderingContext2D, ch: ChannelSpan, xOf: (t: number) => number, yOf: (v: number) => number): void {
+  const scale = Math.abs(ctx.getTransform().a) || 1;
   ctx.beginPath();
   let pen = false;
+  let col = NaN, cx = 0, lo = 0, hi = 0, loAt = 0, hiAt = 0;
+  const flush = (): void => {
+    if (Number.isNaN(col)) return;
+    const [a, b] = loAt <= hiAt ? [lo, hi] : [hi, lo];
+    if (pen) ctx.lineTo(cx, a);
+    else ctx.moveTo(cx, a);
+    if (b !== a) ctx.lineTo(cx, b);
+    pen = true;
+    col = NaN;
+  };
   for (let i = 0; i < ch.samples.length; i++) {
     const v = ch.samples[i];
     if (Number.isNaN(v)) {
+      flush();
       pen = false;
       continue;
     }
     const x = xOf(ch.t0 + i / ch.rate), y = yOf(v);
-    if (pen) ctx.lineTo(x, y);
-    else ctx.moveTo(x, y);
-    pen = true;
+    const c = Math.floor(x * scale);
+    if (c !== col) {
+      flush();
+      col = c;
+      cx = x;
+      lo = hi = y;
+      loAt = hiAt = i;
+    } else if (y < lo) {
+      lo = y;
+      loAt = i;
+    } else if (y > hi) {
+      hi = y;
+      hiAt = i;
+    }
   }
+  flush();
   ctx.stroke();
 }
 
@@ -99,7 +127,9 @@ function drawCell(ctx: CanvasRenderingContext2D, cell: Cell, range: [number, num
   ctx.beginPath();
   ctx.rect(plot.x, plot.y, plot.w, plot.h);
   ctx.clip();
-  ctx.lineWidth = lit ? 1.6 : 1.1;
+  // Traces are one device pixel wide (the highlighted one thicker): a software rasteriser draws
+  // 1-pixel lines on a fast path, while wider strokes of dense polylines cost ~10× more (bench traces).
+  ctx.lineWidth = lit ? 1.6 : 1 / Math.max(1e-3, Math.abs(ctx.getTransform().a));
   for (const ch of trace.span.channels) {
     ctx.strokeStyle = o.channelColour(ch.label);
     drawChannel(ctx, ch, xOf, yOf);
