@@ -8,7 +8,9 @@ import { CAUTIONS } from '../../core/cautions';
 import { studyExports } from '../../core/export/study-exports';
 import { studyReportHtml, type ReportCluster, type ReportFigure } from '../../core/export/study-report';
 import type { Study } from '../../core/study/study.types';
+import type { ViewFigure } from '../state/figures';
 import { mapPng, mapSvg, type MapFigureInput } from './map-figure';
+import { svgToPng } from './svg-png';
 
 /** The file name without its last extension ("windows.csv" → "windows"). */
 export function baseName(fileName: string): string {
@@ -77,7 +79,7 @@ export interface ExportChoice {
   report: boolean;
   mapSvg: boolean;
   mapPng: boolean;
-  /** SVG figures of other views on screen (elements marked data-figure="<title>"). */
+  /** Figures of the views opened on this run (Tree, Mix: SVG and PNG) and of on-screen <svg data-figure>. */
   viewFigures: boolean;
 }
 
@@ -101,6 +103,8 @@ export async function exportDialogFiles(args: {
   choice: ExportChoice;
   map: MapFigureInput;
   clusters: ReportCluster[];
+  /** Figures the views drew for this run (app.figures). */
+  figures?: ViewFigure[];
   appVersion: string;
   createdAt: string;
 }): Promise<FileToWrite[]> {
@@ -117,10 +121,22 @@ export async function exportDialogFiles(args: {
     svg: map.svg,
     caption: map.shown < map.total ? `Sampled: ${map.shown} of ${map.total} windows drawn.` : `${map.total} windows.`,
   }];
-  const others = choice.viewFigures ? viewFigures() : [];
+  const drawn = choice.viewFigures ? (args.figures ?? []) : [];
+  const titles = new Set(drawn.map((f) => f.title));
+  const onScreen = choice.viewFigures ? viewFigures().filter((f) => !titles.has(f.title)) : [];
   if (choice.mapSvg) files.push({ name: `${base}-map.svg`, data: map.svg });
   if (choice.mapPng) files.push({ name: `${base}-map.png`, data: await mapPng(args.map) });
-  for (const f of others) files.push({ name: `${base}-${slug(f.title)}.svg`, data: f.svg });
+  const others: ReportFigure[] = [];
+  for (const f of drawn) {
+    const svg = f.svg();
+    files.push({ name: `${base}-${slug(f.title)}.svg`, data: svg });
+    files.push({ name: `${base}-${slug(f.title)}.png`, data: await svgToPng(svg, f.width, f.height) });
+    others.push({ title: f.title, svg });
+  }
+  for (const f of onScreen) {
+    files.push({ name: `${base}-${slug(f.title)}.svg`, data: f.svg });
+    others.push(f);
+  }
   if (choice.report) {
     const provenanceFile = files.find((f) => f.name.endsWith('-provenance.json'));
     const provenance: unknown = provenanceFile ? JSON.parse(String(provenanceFile.data)) : {};

@@ -11,6 +11,7 @@ import { ownBuffer } from '../lib/hash';
 import { QualityState } from '../views/quality/quality-state.svelte';
 import { Curation } from './curation.svelte';
 import { DockState } from './dock.svelte';
+import { ViewFigures } from './figures';
 import { LiveLayout } from './live-layout.svelte';
 import { MapState } from './map.svelte';
 import { placedNote, runDescription } from './run-text';
@@ -41,6 +42,7 @@ export class AppState {
   readonly quality = new QualityState((job, payload) => this.client.run(job, payload));
   readonly traces = new TracesState();
   readonly live = new LiveLayout();
+  readonly figures = new ViewFigures();
   readonly runs: Runs;
   readonly curation: Curation;
   readonly studyFile: StudyFile;

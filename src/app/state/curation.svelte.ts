@@ -68,6 +68,16 @@ export class Curation {
     return this.state?.clusters ?? [];
   }
 
+  /** Clusters in the curation, emptied ones included (splits and moves to a new cluster add some). */
+  get k(): number {
+    return this.clusters.length;
+  }
+
+  /** Curated cluster per window of `run` when it is the shown run, else the run's own labels. */
+  labelsOf(run: Run): Int32Array {
+    return run === this.app.study.run ? (this.labels ?? run.result.labels) : run.result.labels;
+  }
+
   get sizes(): Int32Array {
     const s = this.state;
     if (!s) return new Int32Array(0);

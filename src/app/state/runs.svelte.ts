@@ -33,6 +33,16 @@ export interface DrawnFigures {
   comparisonAri: number;
 }
 
+const labelIds = new WeakMap<Int32Array, number>();
+let nextLabelsId = 0;
+
+/** A small number naming one labels array (the profile is recomputed when it changes). */
+function labelsId(labels: Int32Array): number {
+  let id = labelIds.get(labels);
+  if (id === undefined) labelIds.set(labels, (id = ++nextLabelsId));
+  return id;
+}
+
 /** A name for a new run: "run 2 · k = 7 · per-subject z-score → impute (mean)". */
 export function runName(id: number, run: Run): string {
   return `run ${id} · k = ${run.params.k} · ${recipeText(run.params.recipe)}`;
@@ -83,7 +93,9 @@ export class Runs {
     const kept = this.shown;
     if (!table || !run || !kept) { this.profile = null; this.profileKey = ''; return; }
     const column = this.composeColumnName();
-    const key = `${kept.id}|${column}`;
+    // Curated labels: a new array only when windows moved (merge, split, move), so names and colours do not recompute.
+    const labels = this.app.curation.labelsOf(run);
+    const key = `${kept.id}|${column}|${labelsId(labels)}`;
     if (key === this.profileKey) return;
     this.profileKey = key;
     const request = ++this.profileRequest;
@@ -101,8 +113,8 @@ export class Runs {
     const subject = run.roles.find((r) => r.role === 'subject')?.name;
     const payload = {
       data: matrix.data, n: matrix.n, d: matrix.d, featureNames: matrix.featureNames,
-      labels: tableLabels(run.result, table.nRows),
-      k: run.result.cluster.k,
+      labels: tableLabels({ labels, windows: run.result.windows }, table.nRows),
+      k: Math.max(run.result.cluster.k, this.app.curation.k),
       compose: column ? findColumn(table, column) : undefined,
       noun: column && column === subject ? 'subject' : column || 'value',
       label: columnWithRole(table, run.roles, 'label'),

@@ -1,4 +1,4 @@
-import { categoryColour, MISSING_COLOUR } from '../../lib/palette';
+import { MISSING_COLOUR } from '../../lib/palette';
 import { CLAMP, zColour, type HeatLayout } from './heat-map';
 
 export interface HeatScene {
@@ -10,6 +10,8 @@ export interface HeatScene {
   order: Int32Array;
   featureNames: string[];
   clusterNames: string[];
+  /** Colour per cluster (the curated ones). */
+  colours: string[];
   focused: number;
   /** Share of each cluster's windows in the selection (empty when nothing is selected). */
   selectedShare: number[];
@@ -28,7 +30,7 @@ export function drawHeat(ctx: CanvasRenderingContext2D, l: HeatLayout, s: HeatSc
       ctx.fillRect(l.left + p * l.cellW, y, l.cellW - 1, l.cellH - 1);
       cells++;
     }
-    ctx.fillStyle = categoryColour(c);
+    ctx.fillStyle = s.colours[c] ?? MISSING_COLOUR;
     ctx.fillRect(l.left - 16, y + 5, 11, 11);
     ctx.fillStyle = c === s.focused ? '#000' : '#333';
     ctx.font = `${c === s.focused ? 'bold ' : ''}12px system-ui, sans-serif`;

@@ -1,4 +1,3 @@
-import { categoryColour } from '../../lib/palette';
 import { durationText, tickStep, type Strip, type TimeView } from './strips';
 
 export const TL = { left: 64, top: 22, rowH: 16, gap: 8, right: 12 } as const;
@@ -6,6 +5,8 @@ export const TL = { left: 64, top: 22, rowH: 16, gap: 8, right: 12 } as const;
 export interface TimelineScene {
   strips: Strip[];
   labels: Int32Array;
+  /** Colour of a cluster (the curated one: set-aside clusters grey). */
+  colour: (cluster: number) => string;
   view: TimeView;
   /** Selection mask over run rows, or null. */
   mask: Uint8Array | null;
@@ -53,7 +54,7 @@ export function drawTimeline(ctx: CanvasRenderingContext2D, s: TimelineScene): n
       const c = s.labels[row];
       const x0 = Math.max(TL.left, x(strip.starts[j])), x1 = Math.min(TL.left + plotW, x(strip.ends[j]));
       ctx.globalAlpha = s.mask && !s.mask[row] ? 0.18 : 1;
-      ctx.fillStyle = categoryColour(c);
+      ctx.fillStyle = s.colour(c);
       ctx.fillRect(x0, y, Math.max(1, x1 - x0), TL.rowH);
       if (s.bound[c]) {
         ctx.fillStyle = '#000';

@@ -51,7 +51,8 @@ export function drawHeightAxis(ctx: CanvasRenderingContext2D, layout: TreeLayout
   ctx.textAlign = 'start';
 }
 
-function niceStep(raw: number): number {
+/** A round tick step near `raw` (1, 2 or 5 times a power of ten). */
+export function niceStep(raw: number): number {
   if (!(raw > 0)) return 1;
   const p = 10 ** Math.floor(Math.log10(raw));
   const f = raw / p;
