@@ -195,18 +195,24 @@ function print(): void {
 }
 
 export async function run(quick: boolean): Promise<void> {
-  const sizes = quick ? [2_000, 10_000] : [2_000, 10_000, 20_000, 50_000, 100_000];
+  // --sizes=20000,100000 runs only those blob sizes; --tsne-only leaves out UMAP and the demo windows.
+  const sizesFlag = process.argv.find((a) => a.startsWith('--sizes='));
+  const tsneOnly = process.argv.includes('--tsne-only');
+  const sizes = sizesFlag ? sizesFlag.slice('--sizes='.length).split(',').map(Number)
+    : quick ? [2_000, 10_000] : [2_000, 10_000, 20_000, 50_000, 100_000];
   console.log(`t-SNE: Gaussian blobs d = ${D}, ${CENTRES} centres, seed ${SEED}; demo windows z-scored; Node ${process.version}${quick ? ' (quick)' : ''}`);
   console.log(`ours: median of 3 runs at n <= ${SMALL_N}, 1 run above; peers: 1 run in a child process, ${BUDGET_S} s budget`);
-  const demo = demoDataset(quick ? 2_000 : Infinity); // --quick: the first 2,000 demo windows
-  await benchOurTsne(demo, 'demo windows');
-  await benchDruidTsne(demo, 'demo windows');
-  await benchUmap(demo, 'demo windows');
+  if (!tsneOnly) {
+    const demo = demoDataset(quick ? 2_000 : Infinity); // --quick: the first 2,000 demo windows
+    await benchOurTsne(demo, 'demo windows');
+    await benchDruidTsne(demo, 'demo windows');
+    await benchUmap(demo, 'demo windows');
+  }
   for (const n of sizes) {
     const ds = blobsDataset(n);
     await benchOurTsne(ds, 'blobs');
     await benchDruidTsne(ds, 'blobs');
-    await benchUmap(ds, 'blobs'); // UMAP rows: ours, umap-js, druid.js (bench/embed-umap.ts)
+    if (!tsneOnly) await benchUmap(ds, 'blobs'); // UMAP rows: ours, umap-js, druid.js (bench/embed-umap.ts)
   }
   print();
   console.log(`trustworthiness: k = ${K} on a seeded sample of up to ${SAMPLE} windows, the same sample for every implementation.`);

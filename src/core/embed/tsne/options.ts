@@ -12,7 +12,7 @@ export interface TsneOptions {
   exaggerationIterations: number;
   /** Step size, or 'auto' = max(n / earlyExaggeration / 4, 50) (default 'auto'). */
   learningRate: 'auto' | number;
-  /** Barnes–Hut opening angle: a cell of width w at distance r is summarised when w / r < theta (default 0.5). 0 = exact. */
+  /** Barnes–Hut opening angle (repulsion 'barnes-hut' only): a cell of width w at distance r is summarised when w / r < theta (default 0.5). 0 = exact. */
   theta: number;
   /** Seed of the initial jitter (and of any sampling); same seed and data → identical coordinates (default 1). */
   seed: number;
@@ -25,6 +25,11 @@ export interface TsneOptions {
    * only), or 'auto' (default): exact up to EXACT_MAX_N windows, approximate above.
    */
   neighbors: 'auto' | 'exact' | 'approximate';
+  /**
+   * Repulsive forces: 'barnes-hut' (quadtree, opening angle `theta`), 'fft' (polynomial
+   * interpolation on a grid, convolution by FFT), or 'auto' (default): FFT from FFT_MIN_N windows.
+   */
+  repulsion: 'auto' | 'fft' | 'barnes-hut';
 }
 
 export const TSNE_DEFAULTS: Readonly<TsneOptions> = Object.freeze({
@@ -38,7 +43,11 @@ export const TSNE_DEFAULTS: Readonly<TsneOptions> = Object.freeze({
   init: 'pca',
   pcaDimensions: 50,
   neighbors: 'auto',
+  repulsion: 'auto',
 });
+
+/** Smallest n for which repulsion 'auto' uses the FFT (measured: see DEVELOPERS.md "Embeddings"). */
+export const FFT_MIN_N = 5_000;
 
 /** Largest n for which 'auto' searches neighbours exactly (O(n² d)); NN-descent above. */
 export const EXACT_MAX_N = 10_000;
@@ -67,7 +76,16 @@ export function resolveTsneOptions(options: Partial<TsneOptions>, n: number): Ts
   if (!['auto', 'exact', 'approximate'].includes(o.neighbors)) {
     throw new OptionError('neighbors', o.neighbors, '"auto", "exact" or "approximate"');
   }
+  if (!['auto', 'fft', 'barnes-hut'].includes(o.repulsion)) {
+    throw new OptionError('repulsion', o.repulsion, '"auto", "fft" or "barnes-hut"');
+  }
   return o;
+}
+
+/** The repulsion method actually used for n windows. */
+export function repulsionOf(o: TsneOptions, n: number): 'fft' | 'barnes-hut' {
+  if (o.repulsion !== 'auto') return o.repulsion;
+  return n >= FFT_MIN_N ? 'fft' : 'barnes-hut';
 }
 
 /** The learning rate actually used. */

@@ -30,7 +30,8 @@ export interface NeighbourInput {
 /**
  * Everything before the first gradient step, as a generator that yields the fraction done after
  * each slice of work (so a driver may checkpoint between slices): optional PCA pre-reduction,
- * neighbours (given, or searched exactly here; k = min(n − 1, ⌊3 · perplexity⌋ + 1)),
+ * neighbours (given, with more than `perplexity` per window; or searched exactly here with
+ * k = min(n − 1, ⌊3 · perplexity⌋ + 1)),
  * perplexity calibration, symmetrisation, and the initial coordinates.
  */
 export function* prepareTsne(
@@ -38,8 +39,8 @@ export function* prepareTsne(
 ): Generator<number, Prepared> {
   const { x, dim } = given ?? reduceForTsne(data, n, d, o);
   yield 0.02;
-  const k = neighboursFor(o.perplexity, n);
   let knn = given?.knn;
+  const k = knn ? knn.k : neighboursFor(o.perplexity, n);
   if (!knn) {
     const search = exactKnnSearch(x, n, dim, k, 'euclidean');
     for (let from = 0; from < n; from += SLICE) {
@@ -48,7 +49,10 @@ export function* prepareTsne(
     }
     knn = search.finish();
   }
-  if (knn.n !== n || knn.k !== k) throw new OptionError('neighbour graph', `${knn.n} × ${knn.k}`, `${n} × ${k}`);
+  const fewest = Math.min(n - 1, Math.ceil(o.perplexity) + 1);
+  if (knn.n !== n || knn.k < fewest || knn.k > n - 1) {
+    throw new OptionError('neighbour graph', `${knn.n} × ${knn.k}`, `${n} rows of ${fewest} to ${n - 1} neighbours`);
+  }
   const sq = new Float64Array(n * k);
   for (let t = 0; t < sq.length; t++) sq[t] = knn.distances[t] * knn.distances[t];
   const conditional = new Float64Array(n * k);
@@ -63,6 +67,15 @@ export function* prepareTsne(
 /** Neighbours per window for the affinities: min(n − 1, ⌊3 · perplexity⌋ + 1) (common practice). */
 export function neighboursFor(perplexity: number, n: number): number {
   return Math.min(n - 1, Math.floor(3 * perplexity) + 1);
+}
+
+/**
+ * Neighbours per window searched by NN-descent: min(n − 1, ⌊1.5 · perplexity⌋ + 1) (46 at the
+ * default 30). The Gaussian calibrated to the perplexity puts little weight past 1.5 · perplexity
+ * neighbours, and the search costs grow steeply with k (measured: see DEVELOPERS.md "Embeddings").
+ */
+export function approximateNeighboursFor(perplexity: number, n: number): number {
+  return Math.min(n - 1, Math.max(Math.ceil(perplexity) + 1, Math.floor(1.5 * perplexity) + 1));
 }
 
 /** Checks the data are finite and projects them onto `pcaDimensions` principal axes when d is larger. */

@@ -1,8 +1,10 @@
 import type { Affinities } from './affinities';
 import { gradient, gradientBuffers, type GradientBuffers } from './gradient';
-import { COST_EVERY, learningRateOf, resolveTsneOptions, type TsneOptions } from './options';
+import { BarnesHutRepulsion } from './barnes-hut';
+import { FftRepulsion } from './fft-repulsion';
+import { COST_EVERY, learningRateOf, repulsionOf, resolveTsneOptions, type TsneOptions } from './options';
 import { prepareTsne, type NeighbourInput } from './prepare';
-import { QuadTree } from './quadtree';
+import type { Repulsion } from './repulsion.types';
 
 /** Early-exaggeration and final momentum, gain steps (common practice, as scikit-learn). */
 const MOMENTUM_EARLY = 0.5;
@@ -12,7 +14,7 @@ const GAIN_DOWN = 0.8;
 const MIN_GAIN = 0.01;
 
 /**
- * Barnes–Hut t-SNE as init + step. `init()` (or driving `initSlices()` to the end) computes the
+ * t-SNE as init + step, with Barnes–Hut or FFT-interpolated repulsion (options.repulsion). `init()` (or driving `initSlices()` to the end) computes the
  * affinities and the start; each `step()` is one gradient-descent iteration with momentum and
  * per-coordinate gains. The KL cost is evaluated every 50 iterations and on the last one.
  * Same data, options and seed → identical coordinates.
@@ -20,6 +22,8 @@ const MIN_GAIN = 0.01;
 export class Tsne {
   readonly options: TsneOptions;
   readonly learningRate: number;
+  /** The repulsion method in use ('auto' resolved by n). */
+  readonly repulsion: 'fft' | 'barnes-hut';
   iteration = 0;
   /** KL(P ‖ Q) at the latest evaluation (un-exaggerated P), undefined before the first. */
   cost: number | undefined = undefined;
@@ -28,7 +32,7 @@ export class Tsne {
   private update = new Float64Array(0);
   private gains = new Float64Array(0);
   private grad = new Float64Array(0);
-  private tree: QuadTree | null = null;
+  private repel: Repulsion | null = null;
   private buf: GradientBuffers | null = null;
 
   constructor(
@@ -37,6 +41,7 @@ export class Tsne {
   ) {
     this.options = resolveTsneOptions(options, n);
     this.learningRate = learningRateOf(this.options, n);
+    this.repulsion = repulsionOf(this.options, n);
   }
 
   /** Prepares the run in one go (exact neighbours unless `given`). */
@@ -52,7 +57,7 @@ export class Tsne {
     this.update = new Float64Array(2 * this.n);
     this.gains = new Float64Array(2 * this.n).fill(1);
     this.grad = new Float64Array(2 * this.n);
-    this.tree = new QuadTree(this.n);
+    this.repel = this.repulsion === 'fft' ? new FftRepulsion(this.n) : new BarnesHutRepulsion(this.n, this.options.theta);
     this.buf = gradientBuffers(this.n);
     this.iteration = 0;
     this.cost = undefined;
@@ -61,7 +66,7 @@ export class Tsne {
   /** One iteration; returns false, doing nothing, once all iterations are done. */
   step(): boolean {
     const p = this.affinities;
-    if (!p || !this.tree || !this.buf) throw new Error('t-SNE: call init() before step()');
+    if (!p || !this.repel || !this.buf) throw new Error('t-SNE: call init() before step()');
     const o = this.options;
     if (this.iteration >= o.iterations) return false;
     const early = this.iteration < o.exaggerationIterations;
@@ -72,7 +77,7 @@ export class Tsne {
     }
     const last = this.iteration + 1 === o.iterations;
     const wantCost = (this.iteration + 1) % COST_EVERY === 0 || last;
-    const { cost } = gradient(this.y, p, this.tree, o.theta, early ? o.earlyExaggeration : 1, this.grad, this.buf, wantCost);
+    const { cost } = gradient(this.y, p, this.repel, early ? o.earlyExaggeration : 1, this.grad, this.buf, wantCost);
     if (cost !== undefined) this.cost = cost;
     const momentum = early ? MOMENTUM_EARLY : MOMENTUM_LATE;
     const { y, update, gains, grad } = this;

@@ -1,6 +1,6 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { kmeans } from '../../../../src/core/cluster/kmeans';
-import { TSNE_DEFAULTS, Tsne, learningRateOf, resolveTsneOptions, runTsne } from '../../../../src/core/embed/tsne';
+import { FFT_MIN_N, TSNE_DEFAULTS, Tsne, learningRateOf, repulsionOf, resolveTsneOptions, runTsne } from '../../../../src/core/embed/tsne';
 import { pca } from '../../../../src/core/embed/pca';
 import { CancelledError, OptionError } from '../../../../src/core/errors';
 import { quietContext } from '../../../../src/core/job';
@@ -38,7 +38,18 @@ describe('t-SNE options', () => {
     expect(() => resolveTsneOptions({ iterations: 2.5 }, 100)).toThrow(/iterations/);
     expect(() => resolveTsneOptions({ learningRate: -1 }, 100)).toThrow(/learningRate/);
     expect(() => resolveTsneOptions({}, 3)).toThrow(/windows/);
+    expect(() => resolveTsneOptions({ repulsion: 'grid' as never }, 100)).toThrow(/repulsion/);
     expect(() => new Tsne(Float64Array.from([1, 2, NaN, 4, 5, 6, 7, 8]), 4, 2, { perplexity: 1 }).init()).toThrow(/window 2, feature 1/);
+  });
+});
+
+describe('repulsion option', () => {
+  it("'auto' picks Barnes–Hut below FFT_MIN_N windows and the FFT from there; an explicit choice is kept", () => {
+    expect(repulsionOf(resolveTsneOptions({}, FFT_MIN_N - 1), FFT_MIN_N - 1)).toBe('barnes-hut');
+    expect(repulsionOf(resolveTsneOptions({}, FFT_MIN_N), FFT_MIN_N)).toBe('fft');
+    expect(repulsionOf(resolveTsneOptions({ repulsion: 'fft' }, 100), 100)).toBe('fft');
+    expect(repulsionOf(resolveTsneOptions({ repulsion: 'barnes-hut' }, 50_000), 50_000)).toBe('barnes-hut');
+    expect(new Tsne(new Float64Array(400), 100, 4, { perplexity: 5, repulsion: 'fft' }).repulsion).toBe('fft');
   });
 });
 
@@ -58,6 +69,18 @@ describe('Tsne determinism', () => {
     let moved = 0;
     for (let t = 0; t < a.length; t++) moved = Math.max(moved, Math.abs(a[t] - b[t]));
     expect(moved).toBeGreaterThan(1e-3);
+  });
+
+  it('with FFT repulsion, the same seed gives identical coordinates', () => {
+    const go = () => {
+      const t = new Tsne(data, 300, 10, { seed: 7, iterations: 80, exaggerationIterations: 40, repulsion: 'fft' });
+      t.init();
+      while (t.step()) { /* run to the end */ }
+      return t.coords();
+    };
+    const a = go();
+    expect(go()).toEqual(a);
+    expect(a.every(Number.isFinite)).toBe(true);
   });
 
   it('step() counts iterations and returns false once finished', () => {
@@ -104,6 +127,34 @@ describe('Tsne on seeded blobs (1,000 windows, d = 20, 5 blobs)', () => {
     const after = [...costs.entries()].filter(([it]) => it >= 300).map(([, c]) => c);
     for (let i = 1; i < after.length; i++) expect(after[i]).toBeLessThanOrEqual(after[i - 1] + 1e-3);
     expect(after[after.length - 1]).toBeLessThan(after[0]);
+  });
+});
+
+describe('Tsne with FFT repulsion on seeded blobs (1,000 windows, d = 20, 5 blobs)', () => {
+  const n = 1000, d = 20;
+  const { data, truth } = blobs(n, d, 5, 42);
+  let coords: Float32Array;
+  const costs: number[] = [];
+
+  beforeAll(() => {
+    const t = new Tsne(data, n, d, { seed: 3, repulsion: 'fft' });
+    t.init();
+    while (t.step()) if (t.iteration % 50 === 0 && t.cost !== undefined) costs.push(t.cost);
+    coords = t.coords();
+  }, 300_000);
+
+  it('keeps neighbourhoods as well as the Barnes–Hut run: trustworthiness(k = 10) at least 0.95, above PCA', () => {
+    // Same floor and baseline as the Barnes–Hut test above (common practice).
+    const tw = trustworthiness(data, n, d, coords, 2, 10);
+    expect(tw).toBeGreaterThanOrEqual(0.95);
+    expect(tw).toBeGreaterThan(trustworthiness(data, n, d, pca(data, n, d, 2).scores, 2, 10));
+  });
+
+  it('separates the blobs (ARI >= 0.99) and the KL divergence falls after early exaggeration', async () => {
+    const km = await kmeans(Float64Array.from(coords), n, 2, { k: 5, restarts: 5, maxIterations: 300, tol: 1e-6, random: seededRandom(1) });
+    expect(adjustedRandIndex(km.labels, truth)).toBeGreaterThanOrEqual(0.99);
+    expect(costs).toHaveLength(20);
+    expect(costs[19]).toBeLessThan(costs[5]);
   });
 });
 
