@@ -2,14 +2,10 @@
 // Chromium with its software renderer (no GPU): median and p90 of ~20 redraws after a pan and
 // after a recolour (colour index rebuild + redraw), each including putImageData, at 200,000 and
 // 1,000,000 points. Prints a table and appends JSON lines to bench-results/map.jsonl.
-import { appendFileSync, mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { dirname, join, resolve } from 'node:path';
-import { fileURLToPath, pathToFileURL } from 'node:url';
-import { chromium } from 'playwright-core';
-import { build } from 'vite';
+import { appendFileSync, mkdirSync } from 'node:fs';
+import { join } from 'node:path';
+import { ROOT, withBenchPage } from '../browser-page';
 
-const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '../..');
 const BUDGET_MS = 50;
 
 /** One result row of the page's `window.__mapBench` (src/app/map/bench-page.ts; bench may not import the app). */
@@ -28,42 +24,9 @@ declare global {
   interface Window { __mapBench?: (n: number, runs: number, width?: number, height?: number) => Promise<MapBenchRow[]> }
 }
 
-type ServeApp = (o: { port?: number; root?: string; demoDir?: string }) => Promise<{ url: string; close: () => Promise<void> }>;
-
-/** Builds the bench page (the app's own renderer modules) into `dir`. */
-async function buildPage(dir: string): Promise<void> {
-  await build({
-    configFile: false,
-    root: ROOT,
-    logLevel: 'warn',
-    build: {
-      outDir: dir,
-      emptyOutDir: true,
-      target: 'es2022',
-      lib: { entry: join(ROOT, 'src/app/map/bench-page.ts'), formats: ['es'], fileName: () => 'map-bench.js' },
-    },
-  });
-  writeFileSync(join(dir, 'index.html'), '<!doctype html><meta charset="utf-8"><title>Map bench</title>\n<body style="margin:0"><canvas></canvas><script type="module" src="./map-bench.js"></script></body>\n');
-}
-
 export async function run(quick: boolean): Promise<void> {
-  const tmp = mkdtempSync(join(tmpdir(), 'gleaner-map-bench-'));
-  const site = join(tmp, 'site');
-  await buildPage(site);
-  const { serveApp } = (await import(pathToFileURL(join(ROOT, 'scripts/serve.mjs')).href)) as { serveApp: ServeApp };
-  const server = await serveApp({ port: 0, root: site, demoDir: site });
-  const context = await chromium.launchPersistentContext(join(tmp, 'profile'), {
-    executablePath: '/usr/bin/chromium',
-    headless: true,
-    viewport: { width: 1300, height: 820 },
-    args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking',
-      '--disable-component-update', '--disable-sync'],
-  });
   const rows: MapBenchRow[] = [];
-  try {
-    const page = context.pages()[0] ?? (await context.newPage());
-    page.on('pageerror', (e) => console.error(`bench page error: ${e.message}`));
-    await page.goto(server.url);
+  const { browser: version } = await withBenchPage({ entry: 'src/app/map/bench-page.ts', name: 'map', viewport: { width: 1300, height: 820 } }, async (page) => {
     await page.waitForFunction(() => typeof window.__mapBench === 'function');
     const runs = quick ? 7 : 21;
     for (const n of quick ? [200_000] : [200_000, 1_000_000]) {
@@ -72,12 +35,7 @@ export async function run(quick: boolean): Promise<void> {
       mkdirSync(join(ROOT, 'test-output'), { recursive: true });
       await page.locator('canvas').screenshot({ path: join(ROOT, `test-output/map-${n}.png`) });
     }
-  } finally {
-    await context.close();
-    await server.close();
-    rmSync(tmp, { recursive: true, force: true });
-  }
-  const version = context.browser()?.version() ?? 'chromium';
+  });
   console.log(`Map redraw in headless Chromium (${version}, --disable-gpu, software raster), canvas ${rows[0].width}×${rows[0].height} CSS px at dpr ${rows[0].dpr}`);
   console.log('| points | operation | median ms | p90 ms | in view | budget |');
   console.log('|--------|-----------|-----------|--------|---------|--------|');
