@@ -3,7 +3,9 @@
 // writes JSON lines to bench-results/cluster.jsonl ({suite, method, impl, n, d, seconds, peak_mib,
 // inertia, ari}; impl "gleaner" for ours). Full: k-means at N = 2k, 10k, 50k, 100k; exact Ward to
 // 20k; two-stage Ward at 50k and 100k. --quick: 2k and 10k.
-import { mkdirSync, writeFileSync } from 'node:fs';
+// GLEANER_BENCH_ONLY=kmeans (or hierarchy) runs one half and keeps the other half's rows in the
+// results file; GLEANER_KMEANS_SEED changes the k-means seeds only (the data stay the same).
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { HierarchicalClustering as DruidHC, KMeans as DruidKMeans } from '@saehrimnir/druidjs';
 import { agnes } from 'ml-hclust';
 import { kmeans as mlKmeans } from 'ml-kmeans';
@@ -22,6 +24,10 @@ const SPREAD = 0.25;
 const OUT = 'bench-results/cluster.jsonl';
 /** k-means++ starts per implementation (best inertia kept; druid.js offers one start). */
 const RESTARTS = 3;
+const ONLY = process.env.GLEANER_BENCH_ONLY;
+if (ONLY !== undefined && ONLY !== 'kmeans' && ONLY !== 'hierarchy') throw new Error(`GLEANER_BENCH_ONLY: expected kmeans or hierarchy, got ${ONLY}`);
+const KM_SEED = Number(process.env.GLEANER_KMEANS_SEED ?? SEED);
+if (!Number.isInteger(KM_SEED)) throw new Error(`GLEANER_KMEANS_SEED: expected an integer, got ${process.env.GLEANER_KMEANS_SEED}`);
 
 interface Row {
   suite: 'cluster';
@@ -70,13 +76,13 @@ async function kmeansRows(n: number, out: Row[]): Promise<void> {
   const b = gaussianBlobs(n, D, K, SEED + n, SPREAD);
   const push = (impl: string, ms: number, peak: number, labels: ArrayLike<number>) =>
     out.push({ suite: 'cluster', method: 'kmeans', impl, n, d: D, seconds: ms / 1000, peak_mib: peak, inertia: wcss(b.data, n, D, labels), ari: adjustedRandIndex(labels, b.truth) });
-  const ours = await measure(() => kmeans(b.data, n, D, { k: K, restarts: RESTARTS, maxIterations: 300, tol: 1e-4, random: seededRandom(SEED) }));
+  const ours = await measure(() => kmeans(b.data, n, D, { k: K, restarts: RESTARTS, maxIterations: 300, tol: 1e-4, random: seededRandom(KM_SEED) }));
   push('gleaner', ours.ms, ours.peakMiB, ours.result.labels);
   const points = rowsOf(b.data, n, D);
   const ml = await measure(() => {
     let best: { labels: number[]; inertia: number } | null = null;
     for (let r = 0; r < RESTARTS; r++) {
-      const res = mlKmeans(points, K, { initialization: 'kmeans++', seed: SEED + r, maxIterations: 300 });
+      const res = mlKmeans(points, K, { initialization: 'kmeans++', seed: KM_SEED + r, maxIterations: 300 });
       const inertia = wcss(b.data, n, D, res.clusters);
       if (!best || inertia < best.inertia) best = { labels: res.clusters, inertia };
     }
@@ -84,7 +90,7 @@ async function kmeansRows(n: number, out: Row[]): Promise<void> {
   });
   push('ml-kmeans 7.0.1', ml.ms, ml.peakMiB, ml.result.labels);
   if (n <= 10_000) {
-    const dr = await measure(() => new DruidKMeans(points, { K, seed: SEED } as never), 1);
+    const dr = await measure(() => new DruidKMeans(points, { K, seed: KM_SEED } as never), 1);
     push('druid.js 0.9.0', dr.ms, dr.peakMiB, dr.result.get_cluster_list() as number[]);
   }
 }
@@ -136,15 +142,21 @@ function print(rows: Row[]): void {
 export async function run(quick: boolean): Promise<void> {
   const kmSizes = quick ? [2_000, 10_000] : [2_000, 10_000, 50_000, 100_000];
   const hcSizes = quick ? [2_000, 10_000] : [2_000, 10_000, 20_000, 50_000, 100_000];
-  console.log(`Gaussian blobs, d = ${D}, k = ${K}, spread ${SPREAD}, seed ${SEED}; Node ${process.version}${quick ? ' (quick)' : ''}`);
+  console.log(`Gaussian blobs, d = ${D}, k = ${K}, spread ${SPREAD}, seed ${SEED}, k-means seed ${KM_SEED}; Node ${process.version}${quick ? ' (quick)' : ''}${ONLY ? ` (${ONLY} only)` : ''}`);
   const rows: Row[] = [];
-  for (const n of kmSizes) await kmeansRows(n, rows);
-  for (const n of hcSizes) await hierarchyRows(n, rows);
+  if (ONLY !== 'hierarchy') for (const n of kmSizes) await kmeansRows(n, rows);
+  if (ONLY !== 'kmeans') for (const n of hcSizes) await hierarchyRows(n, rows);
   print(rows);
   console.log('seconds: median of 3 runs (1 run for hierarchies above 2k and for druid.js / ml-hclust), after one untimed warm-up.');
   console.log(`k-means: ${RESTARTS} k-means++ starts each, best inertia kept (druid.js: one start), iteration cap 300; inertia = within-cluster SS of the returned labels.`);
   console.log('hierarchies are cut at k = 10; ARI against the planted blobs.');
   mkdirSync('bench-results', { recursive: true });
-  writeFileSync(OUT, rows.map((r) => JSON.stringify(r)).join('\n') + '\n');
+  // With one half run, keep the other half's rows from the previous results.
+  const kept = ONLY && existsSync(OUT)
+    ? readFileSync(OUT, 'utf8').split('\n').filter((l) => l.trim()).map((l) => JSON.parse(l) as Row)
+      .filter((r) => (r.method === 'kmeans') !== (ONLY === 'kmeans'))
+    : [];
+  const all = ONLY === 'hierarchy' ? [...kept, ...rows] : [...rows, ...kept];
+  writeFileSync(OUT, all.map((r) => JSON.stringify(r)).join('\n') + '\n');
   console.log(`wrote ${OUT}`);
 }

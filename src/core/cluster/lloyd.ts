@@ -104,14 +104,23 @@ export function inertia(s: LloydState): number {
   return total;
 }
 
+/** Exact squared distance of every window to its own (current) centre; tightens the upper bounds too. */
+function refreshDistances(s: LloydState): void {
+  const { data, n, d, centres, labels, distances, upper } = s;
+  for (let i = 0; i < n; i++) {
+    distances[i] = squaredDistance(data, i * d, centres, labels[i] * d, d);
+    upper[i] = Math.sqrt(distances[i]);
+  }
+}
+
 /**
  * One Lloyd iteration: assign, then move each centre to the mean of its windows. An emptied
- * cluster takes the window farthest from its own centre. Marks the state converged when no
+ * cluster takes the window farthest (exactly measured) from its own centre. Marks the state converged when no
  * window changed cluster or the centres moved less than the tolerance.
  */
 export function lloydStep(s: LloydState): void {
   const { data, n, d, k, centres, labels, distances, upper, lower } = s;
-  const changed = s.iterations === 0 ? assign(s) : boundedAssign(s);
+  let changed = s.iterations === 0 ? assign(s) : boundedAssign(s);
   const sums = new Float64Array(k * d);
   const counts = new Float64Array(k);
   for (let i = 0; i < n; i++) {
@@ -121,8 +130,11 @@ export function lloydStep(s: LloydState): void {
     const co = c * d;
     for (let j = 0; j < d; j++) sums[co + j] += data[o + j];
   }
+  let refreshed = false;
   for (let c = 0; c < k; c++) {
     if (counts[c] > 0) continue;
+    // Windows skipped by the bounds hold distances to older centres: make them exact once.
+    if (!refreshed) { refreshDistances(s); refreshed = true; }
     // Relocate an empty cluster to the farthest window of a cluster that can spare one.
     let far = -1;
     for (let i = 0; i < n; i++) if (counts[labels[i]] > 1 && (far < 0 || distances[i] > distances[far])) far = i;
@@ -131,6 +143,7 @@ export function lloydStep(s: LloydState): void {
     counts[from]--;
     for (let j = 0; j < d; j++) sums[from * d + j] -= data[far * d + j];
     labels[far] = c;
+    changed++;
     distances[far] = 0;
     upper[far] = 0;
     lower[far] = 0;
