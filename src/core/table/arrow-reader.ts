@@ -1,8 +1,8 @@
 import { DataType, makeVector, tableFromIPC, type Table as ArrowTable, type Vector } from 'apache-arrow';
 import { InputError } from '../errors';
 import { quietContext, type JobContext } from '../job';
-import { ByteCollector } from './collect-bytes';
-import { AUTO_FLOAT32_BYTES, DEFAULT_READ_OPTIONS, type ReadOptions, type TableReader } from './reader.types';
+import { WholeFileReader } from './whole-file-reader';
+import { AUTO_FLOAT32_BYTES } from './reader.types';
 import { roleFromName } from './roles';
 import type { Table } from './table';
 import { ValueColumn } from './value-column';
@@ -10,23 +10,7 @@ import { ValueColumn } from './value-column';
 const WIDE_ROLES = new Set(['id', 'subject', 'session', 'start', 'end', 'duration', 'label', 'metadata']);
 
 /** Arrow IPC (file or stream format), decoded column by column with a checkpoint between columns. */
-export class ArrowReader implements TableReader {
-  private readonly bytes: ByteCollector;
-  private readonly opts: Required<ReadOptions>;
-
-  constructor(private readonly fileName: string, options: ReadOptions = {}) {
-    this.opts = { ...DEFAULT_READ_OPTIONS, ...options };
-    this.bytes = new ByteCollector(this.opts.totalBytes);
-  }
-
-  get bytesConsumed(): number {
-    return this.bytes.length;
-  }
-
-  push(chunk: Uint8Array): void {
-    this.bytes.push(chunk);
-  }
-
+export class ArrowReader extends WholeFileReader {
   async finish(ctx: JobContext = quietContext): Promise<Table> {
     const size = this.bytes.length;
     const bytes = new Uint8Array(this.bytes.take());

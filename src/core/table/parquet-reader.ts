@@ -5,9 +5,9 @@ import { gunzip } from 'hyparquet-compressors/src/gzip.js';
 import { decompressLz4, decompressLz4Raw } from 'hyparquet-compressors/src/lz4.js';
 import { InputError } from '../errors';
 import { quietContext, type JobContext } from '../job';
-import { ByteCollector } from './collect-bytes';
+import { WholeFileReader } from './whole-file-reader';
 import { decodeNumericChunk, UnsupportedChunk, type NumericType } from './parquet-numeric';
-import { AUTO_FLOAT32_BYTES, DEFAULT_READ_OPTIONS, type ReadOptions, type TableReader } from './reader.types';
+import { AUTO_FLOAT32_BYTES } from './reader.types';
 import { roleFromName } from './roles';
 import type { Table, TimeFormat } from './table';
 import { ValueColumn } from './value-column';
@@ -58,23 +58,7 @@ function isTime(node: SchemaTree): boolean {
  * progress and a checkpoint between row groups. The bytes are gathered first: Parquet keeps its
  * schema in the footer.
  */
-export class ParquetReader implements TableReader {
-  private readonly bytes: ByteCollector;
-  private readonly opts: Required<ReadOptions>;
-
-  constructor(private readonly fileName: string, options: ReadOptions = {}) {
-    this.opts = { ...DEFAULT_READ_OPTIONS, ...options };
-    this.bytes = new ByteCollector(this.opts.totalBytes);
-  }
-
-  get bytesConsumed(): number {
-    return this.bytes.length;
-  }
-
-  push(chunk: Uint8Array): void {
-    this.bytes.push(chunk);
-  }
-
+export class ParquetReader extends WholeFileReader {
   async finish(ctx: JobContext = quietContext): Promise<Table> {
     const file = this.bytes.take();
     const metadata = this.metadata(file);
