@@ -6,7 +6,7 @@
 // Peers run in a child process (`node --import tsx bench/embed-umap.ts --umap-peer <peer> <dataset> <n>`)
 // killed at the time budget; druid.js UMAP builds N × N matrices (PEERS.md: 6 GB at 10k), so it is
 // not run above 10,000 windows.
-import { spawn } from 'node:child_process';
+import { runChild } from './child';
 import { fileURLToPath } from 'node:url';
 import { UMAP as DruidUMAP } from '@saehrimnir/druidjs';
 import { UMAP as UmapJs } from 'umap-js';
@@ -85,22 +85,7 @@ export async function benchUmap(ds: Dataset, key: string): Promise<void> {
 }
 
 function runUmapPeer(peer: string, dataset: string, n: number): Promise<PeerResult | { skipped: string }> {
-  const self = fileURLToPath(import.meta.url);
-  return new Promise((resolve) => {
-    const child = spawn(process.execPath, ['--max-old-space-size=16000', '--import', 'tsx', self, '--umap-peer', peer, dataset, String(n)], { stdio: ['ignore', 'pipe', 'pipe'] });
-    let out = '';
-    let err = '';
-    child.stdout.on('data', (b: Buffer) => { out += b.toString(); });
-    child.stderr.on('data', (b: Buffer) => { err += b.toString(); });
-    const timer = setTimeout(() => child.kill('SIGKILL'), BUDGET_S * 1000);
-    child.on('close', (code, signal) => {
-      clearTimeout(timer);
-      if (signal === 'SIGKILL') return resolve({ skipped: `killed at the ${BUDGET_S} s budget` });
-      const line = out.trim().split('\n').pop() ?? '';
-      if (code !== 0 || !line.startsWith('{')) return resolve({ skipped: `failed (exit ${code}): ${err.trim().split('\n').slice(-1)[0] ?? ''}` });
-      resolve(JSON.parse(line) as PeerResult);
-    });
-  });
+  return runChild<PeerResult>(fileURLToPath(import.meta.url), ['--umap-peer', peer, dataset, String(n)], BUDGET_S, ['--max-old-space-size=16000']);
 }
 
 /** Child side: runs one peer; returns the line {seconds, peakMiB, map, lists?} to print. */

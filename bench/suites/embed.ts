@@ -6,8 +6,8 @@
 // Peers run in a child process (`node --import tsx bench/suites/embed.ts --peer <name> ...`) so that
 // one can be killed at the time budget or when it runs out of memory; a peer whose estimated time is
 // past the budget is skipped and reported as skipped.
-import { spawn } from 'node:child_process';
 import { appendFileSync, mkdirSync, readFileSync } from 'node:fs';
+import { runChild } from '../child';
 import { fileURLToPath } from 'node:url';
 import { TSNE as DruidTSNE } from '@saehrimnir/druidjs';
 import { runTsne } from '../../src/core/embed/tsne';
@@ -100,22 +100,7 @@ export async function timeInProcess<T>(fn: () => Promise<T>, runs: number): Prom
  * a skipped row with the reason.
  */
 export function runPeerChild(peer: string, dataset: string, n: number): Promise<{ seconds: number; peakMiB: number; map: number[] } | { skipped: string }> {
-  const self = fileURLToPath(import.meta.url);
-  return new Promise((resolve) => {
-    const child = spawn(process.execPath, ['--import', 'tsx', self, '--peer', peer, dataset, String(n)], { stdio: ['ignore', 'pipe', 'pipe'] });
-    let out = '';
-    let err = '';
-    child.stdout.on('data', (b: Buffer) => { out += b.toString(); });
-    child.stderr.on('data', (b: Buffer) => { err += b.toString(); });
-    const timer = setTimeout(() => child.kill('SIGKILL'), BUDGET_S * 1000);
-    child.on('close', (code, signal) => {
-      clearTimeout(timer);
-      if (signal === 'SIGKILL') return resolve({ skipped: `killed at the ${BUDGET_S} s budget` });
-      const line = out.trim().split('\n').pop() ?? '';
-      if (code !== 0 || !line.startsWith('{')) return resolve({ skipped: `failed (exit ${code}): ${err.trim().split('\n').slice(-1)[0] ?? ''}` });
-      resolve(JSON.parse(line) as { seconds: number; peakMiB: number; map: number[] });
-    });
-  });
+  return runChild(fileURLToPath(import.meta.url), ['--peer', peer, dataset, String(n)], BUDGET_S);
 }
 
 export function blobsDataset(n: number): Dataset {

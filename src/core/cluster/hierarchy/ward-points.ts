@@ -26,7 +26,6 @@ export async function wardFromPoints(
   const total = (n * n * d) / 2 + 1;
   let work = 0;
 
-
   for (let k = 0; k < n - 1; k++) {
     if (chainLength === 0) chain[chainLength++] = active.first();
     let x: number;
