@@ -5,7 +5,8 @@ import { CancelledError, InputError } from '../core/errors';
 import type { JobContext } from '../core/job';
 import { concatTables, type TablePart } from '../core/table/concat';
 import { detectFormat } from '../core/table/format';
-import { createTableReader } from '../core/table/reader';
+import { createTableReader, readsByOffset, readTableSource } from '../core/table/reader';
+import { openFileSource } from './file-source';
 import type { ReadOptions } from '../core/table/reader.types';
 import type { Table } from '../core/table/table';
 
@@ -63,25 +64,44 @@ async function readFile(path: string, fileName: string, hash: Hash, deps: ReadIn
   const fd = openSync(path, 'r');
   const size = fstatSync(fd).size;
   let reader: ReturnType<typeof createTableReader> | null = null;
+  // Parquet is decoded by offset after the hashing pass, one row group in memory at a time, so
+  // this pass only hashes it (a quarter of the progress bar); other formats are pushed as they stream.
+  let byOffset = false;
+  let seen = 0;
   const stream = createReadStream(path, { fd, highWaterMark: CHUNK });
   try {
     for await (const chunk of stream as AsyncIterable<Buffer>) {
       if (deps.cancelled()) throw new CancelledError();
       const bytes = new Uint8Array(chunk.buffer, chunk.byteOffset, chunk.byteLength);
       hash.update(bytes);
-      reader ??= createTableReader(detectFormat(fileName, bytes), fileName, { totalBytes: size, ...deps.options });
-      reader.push(bytes);
-      progress(size > 0 ? reader.bytesConsumed / size : 1);
+      seen += bytes.length;
+      if (reader === null && !byOffset) {
+        const format = detectFormat(fileName, bytes);
+        if (readsByOffset(format)) byOffset = true;
+        else reader = createTableReader(format, fileName, { totalBytes: size, ...deps.options });
+      }
+      if (reader) {
+        reader.push(bytes);
+        progress(size > 0 ? reader.bytesConsumed / size : 1);
+      } else progress(0.25 * (seen / size));
     }
   } finally {
     stream.destroy();
   }
-  reader ??= createTableReader(detectFormat(fileName, new Uint8Array(0)), fileName, { totalBytes: 0, ...deps.options });
-  const ctx: JobContext = {
-    progress: (_stage, f) => progress(f),
+  const ctx = (from: number): JobContext => ({
+    progress: (_stage, f) => progress(from + (1 - from) * f),
     checkpoint: () => (deps.cancelled() ? Promise.reject(new CancelledError()) : new Promise((r) => setImmediate(r))),
-  };
-  return reader.finish(ctx);
+  });
+  if (byOffset) {
+    const source = await openFileSource(path);
+    try {
+      return await readTableSource('parquet', fileName, source, { totalBytes: size, ...deps.options }, ctx(0.25));
+    } finally {
+      await source.close();
+    }
+  }
+  reader ??= createTableReader(detectFormat(fileName, new Uint8Array(0)), fileName, { totalBytes: 0, ...deps.options });
+  return reader.finish(ctx(0));
 }
 
 /** Data files under a folder, in path order, skipping hidden and marker files (_SUCCESS, .crc). */

@@ -5,7 +5,8 @@ import type { JobContext } from '../core/job';
 import { profileRun, type ProfileInput, type RunProfile } from '../core/profile/profile';
 import { checkTable, type TableWarning } from '../core/table/checks';
 import { detectFormat, tableFormat } from '../core/table/format';
-import { createTableReader } from '../core/table/reader';
+import { createTableReader, readsByOffset, readTableSource } from '../core/table/reader';
+import { blobSource } from './blob-source';
 import type { ReadOptions, TableFormat } from '../core/table/reader.types';
 import { inferRoles } from '../core/table/roles';
 import type { RoleOverrides, Roles } from '../core/table/roles.types';
@@ -80,23 +81,35 @@ async function* slicesOf(payload: ParseJob): AsyncGenerator<Uint8Array> {
 export const jobs = {
   async parse(payload: ParseJob, ctx: JobContext): Promise<ParseResult> {
     const bytes = payload.bytes ?? [];
-    const total = payload.blob ? payload.blob.size : (Array.isArray(bytes) ? bytes : [bytes]).reduce((s, c) => s + c.length, 0);
+    const { blob } = payload;
+    const total = blob ? blob.size : (Array.isArray(bytes) ? bytes : [bytes]).reduce((s, c) => s + c.length, 0);
     const hash = createSha256();
     let reader: ReturnType<typeof createTableReader> | null = null;
-    const open = (first: Uint8Array) => {
-      const format = payload.format !== undefined ? tableFormat(payload.format) : detectFormat(payload.fileName, first);
-      return createTableReader(format, payload.fileName, { totalBytes: total, ...payload.options });
-    };
+    let format: TableFormat | null = null;
+    const formatOf = (first: Uint8Array) => (payload.format !== undefined ? tableFormat(payload.format) : detectFormat(payload.fileName, first));
+    // A File read by offset (Parquet) is only hashed in this pass; its row groups are read afterwards,
+    // one at a time, so the whole file is never held in memory.
+    const byOffset = (f: TableFormat) => blob !== undefined && readsByOffset(f);
     ctx.progress('reading', 0);
+    let seen = 0;
     for await (const slice of slicesOf(payload)) {
-      reader ??= open(slice);
+      format ??= formatOf(slice);
       hash.update(slice);
-      reader.push(slice);
-      ctx.progress('reading', reader.bytesConsumed / Math.max(1, total));
+      seen += slice.length;
+      if (byOffset(format)) {
+        ctx.progress('reading', seen / Math.max(1, total));
+      } else {
+        reader ??= createTableReader(format, payload.fileName, { totalBytes: total, ...payload.options });
+        reader.push(slice);
+        ctx.progress('reading', reader.bytesConsumed / Math.max(1, total));
+      }
       await ctx.checkpoint();
     }
-    reader ??= open(new Uint8Array(0));
-    const table = await reader.finish({ progress: (_stage, f) => ctx.progress('decoding', f), checkpoint: () => ctx.checkpoint() });
+    format ??= formatOf(new Uint8Array(0));
+    const decoding: JobContext = { progress: (_stage, f) => ctx.progress('decoding', f), checkpoint: () => ctx.checkpoint() };
+    const table = blob && byOffset(format)
+      ? await readTableSource(format, payload.fileName, blobSource(blob), { totalBytes: total, ...payload.options }, decoding)
+      : await (reader ?? createTableReader(format, payload.fileName, { totalBytes: total, ...payload.options })).finish(decoding);
     const roles = inferRoles(table, payload.overrides);
     const warnings = checkTable(table, roles);
     ctx.progress('reading', 1);

@@ -1,0 +1,38 @@
+import { createHash } from 'node:crypto';
+import { mkdtempSync, readFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { quietContext } from '../../src/core/job';
+import { cellText, findColumn } from '../../src/core/table/table';
+import { jobs } from '../../src/worker/jobs';
+import { duckdb, sqlPath } from '../fixtures/duckdb';
+
+describe('parse job', () => {
+  it('reads a Parquet File (Blob) by offset: same table and hash as its bytes, progress to the end', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'gleaner-parse-job-'));
+    const path = join(dir, 'w.parquet');
+    // Written by DuckDB (@duckdb/node-api 1.5), three row groups.
+    await duckdb(`COPY (SELECT i AS window_id, 'S' || (i % 4) AS subject, i * 0.25 AS acc_mean, (i % 9) * 1.5 AS gyro_sd
+      FROM range(3000) t(i) ORDER BY i) TO ${sqlPath(path)} (FORMAT parquet, ROW_GROUP_SIZE 1000)`);
+    const bytes = new Uint8Array(readFileSync(path));
+    const stages: string[] = [];
+    const ctx = { ...quietContext, progress: (stage: string) => void stages.push(stage) };
+    const fromBlob = await jobs.parse({ fileName: 'w.parquet', blob: new Blob([bytes]) }, ctx);
+    const fromBytes = await jobs.parse({ fileName: 'w.parquet', bytes }, quietContext);
+    // The hash of the whole file, as Node's crypto (OpenSSL) computes it.
+    const sha256 = createHash('sha256').update(bytes).digest('hex');
+    expect(fromBlob.sha256).toBe(sha256);
+    expect(fromBytes.sha256).toBe(sha256);
+    expect(fromBlob.table.nRows).toBe(3000);
+    const col = (t: typeof fromBlob.table, name: string) => {
+      const c = findColumn(t, name);
+      if (!c) throw new Error(`no column ${name}`);
+      return Array.from({ length: t.nRows }, (_, r) => cellText(c, r));
+    };
+    for (const name of ['window_id', 'subject', 'acc_mean', 'gyro_sd']) expect(col(fromBlob.table, name)).toEqual(col(fromBytes.table, name));
+    expect(col(fromBlob.table, 'acc_mean')[2999]).toBe('749.75');
+    expect(fromBlob.roles).toEqual(fromBytes.roles);
+    expect(stages).toContain('decoding');
+  });
+});
