@@ -1,6 +1,6 @@
-// Suite "embed": our t-SNE (Barnes–Hut) beside druid.js TSNE (exact) on seeded Gaussian blobs
-// (d = 50, 10 centres) at n = 2k, 10k, 20k, 50k, 100k (--quick: 2k, 10k) and on the demo windows
-// (z-scored features). Prints time, peak memory and trustworthiness (k = 10, seeded sample of up to
+// Suite "embed": our PCA, t-SNE and UMAP beside druid.js (PCA, TSNE exact, UMAP), tsne-js (exact)
+// and umap-js on seeded Gaussian blobs (d = 50, 10 centres) at n = 2k, 10k, 20k, 50k, 100k
+// (--quick: 2k, 10k) and on the demo windows (z-scored features). Prints time, peak memory and trustworthiness (k = 10, seeded sample of up to
 // 5,000 windows) and appends JSON lines to bench-results/embed.jsonl.
 //
 // Peers run in a child process (`node --import tsx bench/suites/embed.ts --peer <name> ...`) so that
@@ -9,7 +9,9 @@
 import { appendFileSync, mkdirSync, readFileSync } from 'node:fs';
 import { runChild } from '../child';
 import { fileURLToPath } from 'node:url';
-import { TSNE as DruidTSNE } from '@saehrimnir/druidjs';
+import { PCA as DruidPCA, TSNE as DruidTSNE } from '@saehrimnir/druidjs';
+import TsneJs from 'tsne-js';
+import { pca } from '../../src/core/embed/pca';
 import { runTsne } from '../../src/core/embed/tsne';
 import { quietContext } from '../../src/core/job';
 import { sampledTrustworthiness } from '../../src/core/metrics/trustworthiness';
@@ -147,18 +149,64 @@ async function benchDruidTsne(ds: Dataset, key: string): Promise<void> {
   recordRow({ ...base, seconds: r.seconds, peak_mib: r.peakMiB, trustworthiness: quality(ds, Float64Array.from(r.map)) });
 }
 
+/** Our PCA (2-D) and druid.js PCA on the same input, in this process: two rows. */
+async function benchPca(ds: Dataset, key: string): Promise<void> {
+  const runs = 3;
+  const ours = await timeInProcess(async () => pca(ds.data, ds.n, ds.d, 2).scores, runs);
+  recordRow({ suite: 'embed', method: 'PCA', impl: 'gleaner', dataset: key, n: ds.n, d: ds.d, seconds: ours.seconds, peak_mib: ours.peakMiB, trustworthiness: quality(ds, ours.result), runs });
+  const input = Array.from({ length: ds.n }, (_, i) => ds.data.subarray(i * ds.d, i * ds.d + ds.d));
+  const druid = await timeInProcess(async () => {
+    const y = DruidPCA.transform(input, { d: 2 }) as unknown as ArrayLike<number>[];
+    const flat = new Float64Array(2 * ds.n);
+    for (let i = 0; i < ds.n; i++) { flat[2 * i] = y[i][0]; flat[2 * i + 1] = y[i][1]; }
+    return flat;
+  }, runs);
+  recordRow({ suite: 'embed', method: 'PCA', impl: 'druid.js 0.9.0', dataset: key, n: ds.n, d: ds.d, seconds: druid.seconds, peak_mib: druid.peakMiB, trustworthiness: quality(ds, druid.result), runs });
+}
+
+/**
+ * tsne-js 1.0.3 (exact, O(n²) per iteration, ndarray-based): measured here at 251 s for n = 500
+ * (d = 50, 1,000 iterations, load average about 4, 2026-12-02), so it is run only where that
+ * estimate, growing as n², fits the budget, and reported as skipped elsewhere.
+ */
+async function benchTsneJs(ds: Dataset, key: string): Promise<void> {
+  const estimate = 251 * (ds.n / 500) ** 2;
+  const base = { suite: 'embed' as const, method: 't-SNE', impl: 'tsne-js 1.0.3', dataset: key, n: ds.n, d: ds.d, runs: 1 };
+  if (estimate > BUDGET_S) {
+    recordRow({ ...base, seconds: null, peak_mib: null, trustworthiness: null, note: `skipped: estimated ${estimate.toFixed(0)} s > ${BUDGET_S} s budget (O(n²) from 251 s at n = 500)` });
+    return;
+  }
+  const r = await runPeerChild('tsne-js', key === 'blobs' ? 'blobs' : 'demo', ds.n);
+  if ('skipped' in r) {
+    recordRow({ ...base, seconds: null, peak_mib: null, trustworthiness: null, note: `skipped: ${r.skipped}` });
+    return;
+  }
+  recordRow({ ...base, seconds: r.seconds, peak_mib: r.peakMiB, trustworthiness: quality(ds, Float64Array.from(r.map)) });
+}
+
+/** A peer's t-SNE of the dataset's rows, flattened (n × 2). */
+function peerTsne(peer: string, ds: Dataset): number[] {
+  const input = Array.from({ length: ds.n }, (_, i) => ds.data.subarray(i * ds.d, i * ds.d + ds.d));
+  let y: ArrayLike<number>[];
+  if (peer === 'druid-tsne') {
+    // Same perplexity and iterations as ours; druid's own learning rate (epsilon 10) and seed.
+    y = new DruidTSNE(input, { perplexity: 30, d: 2, seed: 1 }).transform(1000) as unknown as ArrayLike<number>[];
+  } else if (peer === 'tsne-js') {
+    // Same perplexity and iterations as ours; tsne-js's documented defaults otherwise.
+    const model = new TsneJs({ dim: 2, perplexity: 30, earlyExaggeration: 4, learningRate: 100, nIter: 1000, metric: 'euclidean' });
+    model.init({ data: input.map((r) => Array.from(r)), type: 'dense' });
+    model.run();
+    y = model.getOutput() as ArrayLike<number>[];
+  } else throw new Error(`unknown peer ${peer}`);
+  const flat = new Array<number>(2 * ds.n);
+  for (let i = 0; i < ds.n; i++) { flat[2 * i] = y[i][0]; flat[2 * i + 1] = y[i][1]; }
+  return flat;
+}
+
 /** Child-process side of a peer run: prints {seconds, peakMiB, map}. */
 async function peerChild(peer: string, dataset: string, n: number): Promise<void> {
   const ds = load(dataset, n);
-  if (peer !== 'druid-tsne') throw new Error(`unknown peer ${peer}`);
-  const input = Array.from({ length: ds.n }, (_, i) => ds.data.subarray(i * ds.d, i * ds.d + ds.d));
-  const m = await timeInProcess(async () => {
-    // Same perplexity and iterations as ours; druid's own learning rate (epsilon 10) and seed.
-    const y = new DruidTSNE(input, { perplexity: 30, d: 2, seed: 1 }).transform(1000) as unknown as ArrayLike<number>[];
-    const flat = new Array<number>(2 * ds.n);
-    for (let i = 0; i < ds.n; i++) { flat[2 * i] = y[i][0]; flat[2 * i + 1] = y[i][1]; }
-    return flat;
-  }, 1);
+  const m = await timeInProcess(async () => peerTsne(peer, ds), 1);
   // Exit only once the (possibly large) line is flushed: an early exit truncates piped stdout.
   await new Promise<void>((resolve) => process.stdout.write(`${JSON.stringify({ seconds: m.seconds, peakMiB: m.peakMiB, map: m.result })}\n`, () => resolve()));
 }
@@ -189,14 +237,18 @@ export async function run(quick: boolean): Promise<void> {
   console.log(`ours: median of 3 runs at n <= ${SMALL_N}, 1 run above; peers: 1 run in a child process, ${BUDGET_S} s budget`);
   if (!tsneOnly) {
     const demo = demoDataset(quick ? 2_000 : Infinity); // --quick: the first 2,000 demo windows
+    await benchPca(demo, 'demo windows');
     await benchOurTsne(demo, 'demo windows');
     await benchDruidTsne(demo, 'demo windows');
+    await benchTsneJs(demo, 'demo windows');
     await benchUmap(demo, 'demo windows');
   }
   for (const n of sizes) {
     const ds = blobsDataset(n);
+    if (!tsneOnly) await benchPca(ds, 'blobs');
     await benchOurTsne(ds, 'blobs');
     await benchDruidTsne(ds, 'blobs');
+    await benchTsneJs(ds, 'blobs');
     if (!tsneOnly) await benchUmap(ds, 'blobs'); // UMAP rows: ours, umap-js, druid.js (bench/embed-umap.ts)
   }
   print();
