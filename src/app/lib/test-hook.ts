@@ -43,6 +43,8 @@ export interface TestHook {
   /** Layout partials received from running t-SNE/UMAP jobs, and live Map frames drawn from them. */
   readonly partials: number;
   readonly liveFrames: number;
+  /** The user's drag of the live Map (CSS pixels) since the run started. */
+  readonly livePan: { x: number; y: number };
 }
 
 export function installTestHook(app: AppState): void {
@@ -68,6 +70,7 @@ export function installTestHook(app: AppState): void {
     clusterSetAside: (c) => app.curation.clusters[c]?.setAside ?? false,
     get partials() { return app.live.partials; },
     get liveFrames() { return app.live.frames; },
+    get livePan() { return { x: app.live.panX, y: app.live.panY }; },
     screenPosition(i) {
       const run = app.study.run, view = app.map.view, canvas = app.map.canvas;
       if (!run || !view || !canvas || i < 0 || i >= run.result.labels.length) return null;

@@ -17,11 +17,18 @@ export class LiveLayout {
   /** Partials received since the app started, and live Map frames drawn (for the test hook). */
   partials = $state(0);
   frames = $state(0);
+  /** The user's drag (CSS pixels) and zoom on top of the fitted live layout; reset by each run. */
+  panX = $state(0);
+  panY = $state(0);
+  zoom = $state(1);
   private startedAt = 0;
   private running = false;
 
   start(now: number): void {
     this.coords = null;
+    this.panX = 0;
+    this.panY = 0;
+    this.zoom = 1;
     this.step = 0;
     this.steps = 0;
     this.cost = undefined;
