@@ -12,7 +12,8 @@ export const WEAK_LABELS_HEADER = [
  * Per-window weak labels: the window's identity (from the column roles; '' where a role has no
  * column), its cluster index, the class name the user gave that cluster ('' while it is still a
  * candidate) and the assignment confidence, then set_aside (1 when the window's cluster was set
- * aside as noise: its class name is then blank; else 0). With curation, pass the curated `labels`
+ * aside as noise: its class name is then blank; else 0), and `placed` (1 = the window was placed on
+ * the Map from its sampled neighbours, 0 = embedded) only when the run sampled. With curation, pass the curated `labels`
  * (one per table row) and the per-cluster `setAside` flags; confidence stays the run's own.
  */
 export function weakLabelsCsv(args: {
@@ -30,6 +31,7 @@ export function weakLabelsCsv(args: {
   const labels = args.labels ?? result.labels;
   if (labels.length !== table.nRows) throw new Error(`weakLabelsCsv: ${labels.length} labels for ${table.nRows} windows`);
   const w = windowColumns(table, roles);
+  const placed = result.placed;
   const rows: (string | number)[][] = new Array(table.nRows);
   for (let i = 0; i < table.nRows; i++) {
     const cluster = labels[i];
@@ -45,6 +47,7 @@ export function weakLabelsCsv(args: {
       formatNumber(result.confidence[i], 4),
       aside ? '1' : '0',
     ];
+    if (placed) rows[i].push(String(placed[i]));
   }
-  return toCsv(WEAK_LABELS_HEADER, rows);
+  return toCsv(placed ? [...WEAK_LABELS_HEADER, 'placed'] : WEAK_LABELS_HEADER, rows);
 }

@@ -70,6 +70,13 @@ describe('weakLabelsCsv({ table, roles, result, clusterNames })', () => {
       '"a""3",S02,,1700000000.25,1700000000.75,1,,1,1',
     ]);
   });
+
+  it('adds placed (1 = placed from sampled neighbours) only when the run sampled', () => {
+    const sampled = { ...result, placed: Uint8Array.from([0, 1, 0]) };
+    const lines = weakLabelsCsv({ table, roles, result: sampled, clusterNames: ['walking'] }).split('\n');
+    expect(lines[0]).toBe('window_id,subject,session,start,end,cluster,class_name,confidence,set_aside,placed');
+    expect(lines.slice(1, 4).map((l) => l.split(',').at(-1))).toEqual(['0', '1', '0']);
+  });
 });
 
 describe('mapCsv({ table, roles, result })', () => {
