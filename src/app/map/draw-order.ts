@@ -1,13 +1,33 @@
 import { seededRandom } from '../../core/random';
 
 /**
+ * Where the cells of the drawing order lie: cell (cx, cy) covers data x from minX + cx·cellW and
+ * data y down from maxY − cy·cellH (rows from the top, as the screen), and its points are
+ * order[begins[cy·grid + cx] .. begins[cy·grid + cx + 1]). Lets a frame skip cells out of view.
+ */
+export interface DrawCells {
+  grid: number;
+  begins: Int32Array;
+  minX: number;
+  maxY: number;
+  cellW: number;
+  cellH: number;
+}
+
+/**
  * The order the Map draws points in. Points are grouped by a coarse grid over their coordinates
  * (cell by cell, so that consecutive points land near each other in the pixel buffer, which keeps
- * a million-point frame in cache), and shuffled (seeded) within each cell, so that where clusters
- * or subjects overlap none of them is always painted last (the table's own order is often by
- * subject and time). Same points and seed → same order.
+ * a million-point frame in cache, and a zoomed-in frame can skip the cells out of view), and
+ * shuffled (seeded) within each cell, so that where clusters or subjects overlap none of them is
+ * always painted last (the table's own order is often by subject and time). Same points and
+ * seed → same order.
  */
 export function drawOrder(coords: Float32Array, seed = 1, grid = 128): Int32Array {
+  return drawOrderCells(coords, seed, grid).order;
+}
+
+/** The drawing order and its cells (null when no point has finite coordinates). */
+export function drawOrderCells(coords: Float32Array, seed = 1, grid = 128): { order: Int32Array; cells: DrawCells | null } {
   const n = coords.length / 2;
   const shuffled = new Int32Array(n);
   for (let i = 0; i < n; i++) shuffled[i] = i;
@@ -36,12 +56,14 @@ export function drawOrder(coords: Float32Array, seed = 1, grid = 128): Int32Arra
   const start = new Int32Array(grid * grid + 1);
   for (let i = 0; i < n; i++) start[cellOf(i) + 1]++;
   for (let c = 0; c < grid * grid; c++) start[c + 1] += start[c];
+  const begins = start.slice();
   const order = new Int32Array(n);
   for (let j = 0; j < n; j++) {
     const i = shuffled[j];
     order[start[cellOf(i)]++] = i;
   }
-  return order;
+  const finite = Number.isFinite(minX + maxX + minY + maxY);
+  return { order, cells: finite ? { grid, begins, minX, maxY, cellW: 1 / sx, cellH: 1 / sy } : null };
 }
 
 /** out[j] = values[order[j]] for interleaved pairs (coordinates). */

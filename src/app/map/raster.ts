@@ -5,8 +5,10 @@
  *
  * Colours are packed RGBA uint32 in ImageData byte order on a little-endian machine
  * (0xAABBGGRR), as every platform the app runs on is. Discs are drawn without anti-aliasing; a
- * pass blends one constant alpha over what is already there.
+ * pass blends one constant alpha over what is already there (the loops are in raster-pass.ts).
  */
+import type { DrawCells } from './draw-order';
+import { passRange, passSome, type Pass, type PassCount } from './raster-pass';
 
 export interface PixelBuffer {
   /** width × height pixels, row-major, packed 0xAABBGGRR. */
@@ -30,8 +32,10 @@ export interface RasterPoints {
   colourIndex: Uint8Array | Uint16Array;
   /** Cluster per point (negative = none), to count the clusters in view. */
   labels: Int32Array;
-  /** 1 = selected; null = no selection. */
-  selection: Uint8Array | null;
+  /** Positions (in this drawing order, ascending) of the selected points; null = no selection. */
+  selected: Int32Array | null;
+  /** The grid cells of the drawing order, so cells out of view are skipped; absent = draw all. */
+  cells?: DrawCells | null;
 }
 
 export interface RasterStyle {
@@ -85,19 +89,34 @@ export function discStamp(radius: number): Stamp {
   return { offsets: Int16Array.from(out), reach };
 }
 
+function clampCell(v: number, grid: number): number {
+  return Math.min(grid - 1, Math.max(0, Math.floor(v)));
+}
+
+/** The positions of the non-zero entries of a selection mask, ascending. */
+export function selectedPositions(mask: Uint8Array): Int32Array {
+  let count = 0;
+  for (let i = 0; i < mask.length; i++) if (mask[i] !== 0) count++;
+  const list = new Int32Array(count);
+  let j = 0;
+  for (let i = 0; i < mask.length; i++) if (mask[i] !== 0) list[j++] = i;
+  return list;
+}
+
 /**
  * Reusable per-frame scratch: stamps and blend tables are rebuilt only when the style changes,
  * so drawing a frame allocates nothing.
  */
 export class Rasterizer {
-  private stampRadius = -1;
-  private stamp: Stamp = discStamp(0);
-  private linear: Int32Array = new Int32Array(0);
-  private linearWidth = -1;
-  private rb: Float64Array = new Float64Array(0);
-  private g: Float64Array = new Float64Array(0);
-  private opaque: Uint32Array = new Uint32Array(0);
-  private seen: Uint8Array = new Uint8Array(0);
+  /** Stamps by radius, with their row-major offsets for the buffer width they were made for. */
+  private readonly stamps = new Map<number, { stamp: Stamp; linear: Int32Array; width: number }>();
+  private readonly s: Pass = {
+    pixels: new Uint32Array(0), width: 0, height: 0, a: 1, bx: 0, by: 0,
+    coords: new Float32Array(0), colourIndex: new Uint8Array(0),
+    linear: new Int32Array(0), offsets: new Int16Array(0), reach: 0,
+    rb: new Int32Array(0), g: new Int32Array(0), opaque: new Uint32Array(0), inv: 0,
+  };
+  private readonly count: PassCount = { drawn: 0, clusters: 0, seen: new Uint8Array(16) };
 
   /** Clears the buffer to one packed colour. */
   clear(buf: PixelBuffer, colour: number): void {
@@ -109,107 +128,81 @@ export class Rasterizer {
    * a ring and the disc of every selected point on top.
    */
   draw(buf: PixelBuffer, pts: RasterPoints, t: PixelTransform, style: RasterStyle): DrawStats {
-    const sel = pts.selection;
-    const stats = this.pass(buf, pts, t, style.palette, -1, style.radius, sel ? style.dimmedAlpha : style.alpha, null, true);
-    if (sel) {
-      this.pass(buf, pts, t, style.palette, style.outline, style.selectedRadius + 1, 1, sel, false);
-      this.pass(buf, pts, t, style.palette, -1, style.selectedRadius, 1, sel, false);
+    const s = this.s;
+    s.pixels = buf.pixels; s.width = buf.width; s.height = buf.height;
+    s.a = t.a; s.bx = t.bx; s.by = t.by;
+    s.coords = pts.coords; s.colourIndex = pts.colourIndex;
+    const sel = pts.selected;
+    this.use(style.radius, style.palette, -1, sel ? style.dimmedAlpha : style.alpha);
+    const count = this.count;
+    count.seen.fill(0);
+    count.drawn = 0;
+    count.clusters = 0;
+    this.passVisible(pts, count);
+    if (sel && sel.length > 0) {
+      this.use(style.selectedRadius + 1, style.palette, style.outline, 1);
+      passSome(s, sel);
+      this.use(style.selectedRadius, style.palette, -1, 1);
+      passSome(s, sel);
     }
-    return stats;
+    return { pointsDrawn: this.count.drawn, clustersDrawn: this.count.clusters };
   }
 
-  private useStamp(radius: number, width: number): void {
-    if (radius !== this.stampRadius) {
-      this.stamp = discStamp(radius);
-      this.stampRadius = radius;
-      this.linearWidth = -1;
+  /**
+   * The full pass, over the cells that can touch the buffer only: the rows of cells in view, each
+   * a contiguous run of the drawing order. Skipped points lie wholly outside, so the frame is the
+   * same as drawing them all.
+   */
+  private passVisible(pts: RasterPoints, count: PassCount): void {
+    const s = this.s, cells = pts.cells, n = pts.colourIndex.length;
+    if (!cells || !(s.a > 0) || cells.begins[cells.begins.length - 1] !== n) {
+      passRange(s, 0, n, pts.labels, count);
+      return;
     }
-    if (width !== this.linearWidth) {
-      const o = this.stamp.offsets;
-      this.linear = new Int32Array(o.length / 2);
-      for (let k = 0; k < this.linear.length; k++) this.linear[k] = o[2 * k + 1] * width + o[2 * k];
-      this.linearWidth = width;
+    const { grid, begins, minX, maxY, cellW, cellH } = cells;
+    // Data extent of the buffer widened by the stamp and a pixel; one more cell each side absorbs rounding.
+    const m = s.reach + 1;
+    const x0 = (-m - s.bx) / s.a, x1 = (s.width + m - s.bx) / s.a;
+    const y0 = (s.by - s.height - m) / s.a, y1 = (s.by + m) / s.a;
+    const cx0 = clampCell((x0 - minX) / cellW - 1, grid), cx1 = clampCell((x1 - minX) / cellW + 1, grid);
+    const cy0 = clampCell((maxY - y1) / cellH - 1, grid), cy1 = clampCell((maxY - y0) / cellH + 1, grid);
+    if (cx0 === 0 && cx1 === grid - 1) {
+      passRange(s, begins[cy0 * grid], begins[(cy1 + 1) * grid], pts.labels, count);
+      return;
     }
+    for (let cy = cy0; cy <= cy1; cy++) passRange(s, begins[cy * grid + cx0], begins[cy * grid + cx1 + 1], pts.labels, count);
   }
 
-  /** Premultiplied colour channels (red|blue and green lanes) for one alpha; `fixed` ≥ 0 paints every point that colour. */
-  private useColours(palette: Uint32Array, fixed: number, a256: number): void {
-    if (this.rb.length < palette.length + 1) {
-      this.rb = new Float64Array(palette.length + 1);
-      this.g = new Float64Array(palette.length + 1);
-      this.opaque = new Uint32Array(palette.length + 1);
+  /** Sets the pass's stamp and colours; `fixed` ≥ 0 paints every point that colour. */
+  private use(radius: number, palette: Uint32Array, fixed: number, alpha: number): void {
+    const s = this.s;
+    let st = this.stamps.get(radius);
+    if (!st) {
+      if (this.stamps.size >= 8) this.stamps.clear();
+      st = { stamp: discStamp(radius), linear: new Int32Array(0), width: -1 };
+      this.stamps.set(radius, st);
+    }
+    if (st.width !== s.width) {
+      const o = st.stamp.offsets;
+      st.linear = new Int32Array(o.length / 2);
+      for (let k = 0; k < st.linear.length; k++) st.linear[k] = o[2 * k + 1] * s.width + o[2 * k];
+      st.width = s.width;
+    }
+    s.linear = st.linear;
+    s.offsets = st.stamp.offsets;
+    s.reach = st.stamp.reach;
+    const a256 = Math.round(Math.min(1, Math.max(0, alpha)) * 256);
+    s.inv = 256 - a256;
+    if (s.rb.length < palette.length) {
+      s.rb = new Int32Array(palette.length);
+      s.g = new Int32Array(palette.length);
+      s.opaque = new Uint32Array(palette.length);
     }
     for (let c = 0; c < palette.length; c++) {
       const col = fixed >= 0 ? fixed : palette[c];
-      this.opaque[c] = col | 0xff000000;
-      this.rb[c] = (col & 0xff00ff) * a256;
-      this.g[c] = (col & 0xff00) * a256;
+      s.opaque[c] = col | 0xff000000;
+      s.rb[c] = Math.imul(col & 0xff00ff, a256);
+      s.g[c] = Math.imul(col & 0xff00, a256);
     }
-  }
-
-  private pass(
-    buf: PixelBuffer, pts: RasterPoints, t: PixelTransform, palette: Uint32Array, fixed: number,
-    radius: number, alpha: number, only: Uint8Array | null, count: boolean,
-  ): DrawStats {
-    const { pixels, width: W, height: H } = buf;
-    this.useStamp(radius, W);
-    const a256 = Math.round(Math.min(1, Math.max(0, alpha)) * 256);
-    const inv = 256 - a256;
-    this.useColours(palette, fixed, a256);
-    const rbT = this.rb, gT = this.g, opaque = this.opaque, lin = this.linear, off = this.stamp.offsets, R = this.stamp.reach;
-    const { coords, colourIndex, labels } = pts;
-    const n = colourIndex.length;
-    if (count) this.resetSeen(labels);
-    const seen = this.seen;
-    let drawn = 0, clusters = 0;
-    const { a, bx, by } = t;
-    const m = lin.length;
-    for (let i = 0; i < n; i++) {
-      if (only !== null && only[i] === 0) continue;
-      const fx = bx + a * coords[2 * i], fy = by - a * coords[2 * i + 1];
-      // Written so that NaN coordinates are skipped too.
-      if (!(fx >= -R && fy >= -R && fx < W + R && fy < H + R)) continue;
-      // floor() by truncating a positive number: fx + R + 1 > 0 here.
-      const px = ((fx + R + 1) | 0) - R - 1, py = ((fy + R + 1) | 0) - R - 1;
-      if (count) {
-        drawn++;
-        const l = labels[i];
-        if (l >= 0 && l < seen.length && seen[l] === 0) { seen[l] = 1; clusters++; }
-      }
-      const c = colourIndex[i];
-      const srb = rbT[c], sg = gT[c];
-      if (px >= R && py >= R && px < W - R && py < H - R) {
-        const base = py * W + px;
-        if (inv === 0) {
-          // Opaque: no need to read what is underneath.
-          const col = opaque[c];
-          for (let k = 0; k < m; k++) pixels[base + lin[k]] = col;
-          continue;
-        }
-        for (let k = 0; k < m; k++) {
-          const p = base + lin[k];
-          const d = pixels[p];
-          pixels[p] = 0xff000000 | (((srb + (d & 0xff00ff) * inv) >>> 8) & 0xff00ff) | (((sg + (d & 0xff00) * inv) >>> 8) & 0xff00);
-        }
-      } else {
-        for (let k = 0; k < m; k++) {
-          const x = px + off[2 * k], y = py + off[2 * k + 1];
-          if (x < 0 || y < 0 || x >= W || y >= H) continue;
-          const p = y * W + x;
-          const d = pixels[p];
-          pixels[p] = 0xff000000 | (((srb + (d & 0xff00ff) * inv) >>> 8) & 0xff00ff) | (((sg + (d & 0xff00) * inv) >>> 8) & 0xff00);
-        }
-      }
-    }
-    return { pointsDrawn: drawn, clustersDrawn: clusters };
-  }
-
-  private resetSeen(labels: Int32Array): void {
-    // Cluster ids are small (k). The labels array may be refilled in place (a new tree cut, a
-    // merge), so its largest id is found every frame (one pass), and the table grows when needed.
-    let max = -1;
-    for (let i = 0; i < labels.length; i++) if (labels[i] > max) max = labels[i];
-    if (max + 1 > this.seen.length) this.seen = new Uint8Array(max + 1);
-    else this.seen.fill(0);
   }
 }

@@ -1,14 +1,15 @@
 import type { Colouring } from './colouring';
-import { drawOrder, permute, permutePairs } from './draw-order';
+import { drawOrderCells, permute, permutePairs, type DrawCells } from './draw-order';
 import { placedIndex, withPlacedColours } from './placed';
 import { BACKGROUND, pointStyle } from './point-style';
-import { Rasterizer, type DrawStats, type PixelBuffer, type RasterStyle } from './raster';
+import { Rasterizer, selectedPositions, type DrawStats, type PixelBuffer, type RasterPoints, type RasterStyle } from './raster';
 import type { MapView } from './view';
 
 /**
  * Draws the Map into a 2-D canvas through one reused ImageData: points are kept in a shuffled
- * drawing order (rebuilt only for new points), colours and selection are re-ordered only when
- * they change, and a frame is one raster pass plus one putImageData.
+ * drawing order (rebuilt only for new points), colours, placed windows and selection are
+ * re-ordered only when they change (the selection as the list of its positions), so a pan is
+ * one raster pass over typed arrays (over the grid cells in view only) plus one putImageData.
  */
 export class MapRenderer {
   private readonly raster = new Rasterizer();
@@ -19,25 +20,32 @@ export class MapRenderer {
   private srcIndex: Uint8Array | null = null;
   private srcSelection: Uint8Array | null = null;
   private order: Int32Array = new Int32Array(0);
+  private cells: DrawCells | null = null;
   private coords: Float32Array = new Float32Array(0);
   private labels: Int32Array = new Int32Array(0);
   private colourIndex: Uint8Array = new Uint8Array(0);
   private selection: Uint8Array = new Uint8Array(0);
+  /** Positions of the selected points in drawing order. */
+  private selected: Int32Array = new Int32Array(0);
   private hasSelection = false;
   private style: RasterStyle | null = null;
-  private styleKey = '';
+  /** Number of points and device pixel ratio the style was made for (its palette is the third key). */
+  private styleFor = { n: -1, dpr: -1 };
+  private readonly points: RasterPoints = { coords: new Float32Array(0), colourIndex: new Uint8Array(0), labels: new Int32Array(0), selected: null };
   private palette: Uint32Array = new Uint32Array(1);
   private readonly transform = { a: 1, bx: 0, by: 0 };
   /** Placed windows (drawing order) and the lighter colouring built from them; null = none placed. */
   private placed: Uint8Array | null = null;
   private srcPlaced: Uint8Array | null = null;
   private placedColours: { src: Uint32Array; index: Uint16Array; palette: Uint32Array } | null = null;
+  /** Whether placedColours.index matches the current colours and placed windows. */
+  private placedFresh = false;
 
   /** New coordinates and clusters (a new run): rebuilds the drawing order. */
   setPoints(coords: Float32Array, labels: Int32Array): void {
     if (coords === this.srcCoords && labels === this.srcLabels) return;
     const n = labels.length;
-    this.order = drawOrder(coords);
+    ({ order: this.order, cells: this.cells } = drawOrderCells(coords));
     if (n !== this.coords.length / 2) {
       this.coords = new Float32Array(2 * n);
       this.labels = new Int32Array(n);
@@ -48,6 +56,7 @@ export class MapRenderer {
     this.srcSelection = null;
     this.srcPlaced = null;
     this.placed = null;
+    this.placedFresh = false;
     permutePairs(coords, this.order, this.coords);
     permute(labels, this.order, this.labels);
     this.srcCoords = coords;
@@ -59,6 +68,7 @@ export class MapRenderer {
     if (mask === this.srcPlaced) return;
     this.srcPlaced = mask;
     this.placedColours = null;
+    this.placedFresh = false;
     this.placed = mask && mask.length === this.order.length ? permute(mask, this.order, new Uint8Array(mask.length)) : null;
   }
 
@@ -67,11 +77,9 @@ export class MapRenderer {
     if (c.index !== this.srcIndex && c.index.length === this.order.length) {
       permute(c.index, this.order, this.colourIndex);
       this.srcIndex = c.index;
+      this.placedFresh = false;
     }
-    if (c.palette !== this.palette) {
-      this.palette = c.palette;
-      this.styleKey = '';
-    }
+    this.palette = c.palette;
   }
 
   /** The shared selection (null or an empty mask = none). */
@@ -80,6 +88,7 @@ export class MapRenderer {
     if (!this.hasSelection || mask === this.srcSelection) return;
     permute(mask!, this.order, this.selection);
     this.srcSelection = mask;
+    this.selected = selectedPositions(this.selection);
   }
 
   /** Draws one frame; the canvas must be view size × dpr device pixels. */
@@ -94,14 +103,18 @@ export class MapRenderer {
       let pc = this.placedColours;
       if (!pc || pc.src !== this.palette || pc.index.length !== this.colourIndex.length) {
         pc = this.placedColours = { src: this.palette, palette: withPlacedColours(this.palette), index: new Uint16Array(this.colourIndex.length) };
+        this.placedFresh = false;
       }
+      if (!this.placedFresh) placedIndex(this.colourIndex, this.placed, this.palette.length, pc.index);
+      this.placedFresh = true;
       palette = pc.palette;
-      colourIndex = placedIndex(this.colourIndex, this.placed, this.palette.length, pc.index);
+      colourIndex = pc.index;
     }
-    const key = `${this.order.length}:${dpr}:${palette.length}:${this.placed ? 1 : 0}`;
-    if (key !== this.styleKey || !this.style || this.style.palette !== palette) {
-      this.style = pointStyle(this.order.length, dpr, palette);
-      this.styleKey = key;
+    const n = this.order.length, sf = this.styleFor;
+    if (!this.style || this.style.palette !== palette || sf.n !== n || sf.dpr !== dpr) {
+      this.style = pointStyle(n, dpr, palette);
+      sf.n = n;
+      sf.dpr = dpr;
     }
     const buf = this.buf!;
     this.raster.clear(buf, BACKGROUND);
@@ -109,12 +122,13 @@ export class MapRenderer {
     t.a = view.scale * dpr;
     t.bx = (view.width / 2 - view.centreX * view.scale) * dpr;
     t.by = (view.height / 2 + view.centreY * view.scale) * dpr;
-    const stats = this.raster.draw(buf, {
-      coords: this.coords,
-      colourIndex,
-      labels: this.labels,
-      selection: this.hasSelection ? this.selection : null,
-    }, t, this.style);
+    const pts = this.points;
+    pts.coords = this.coords;
+    pts.colourIndex = colourIndex;
+    pts.labels = this.labels;
+    pts.selected = this.hasSelection ? this.selected : null;
+    pts.cells = this.cells;
+    const stats = this.raster.draw(buf, pts, t, this.style);
     ctx.putImageData(this.image, 0, 0);
     return stats;
   }

@@ -57,7 +57,7 @@ describe('Rasterizer.draw', () => {
       coords: Float32Array.from([1.5, 2.5, 2.5, 2.5, 5.5, 3.5]),
       colourIndex: Uint8Array.from([0, 1, 0]),
       labels: Int32Array.from([0, 1, 0]),
-      selection: null,
+      selected: null,
     }, ident(5), style());
     expect(picture(buf)).toEqual([
       '.....r.',
@@ -72,7 +72,7 @@ describe('Rasterizer.draw', () => {
   it('blends with the given alpha over what is there', () => {
     const buf = buffer(3, 3);
     new Rasterizer().draw(buf, {
-      coords: Float32Array.from([1.5, 1.5]), colourIndex: Uint8Array.from([0]), labels: Int32Array.from([0]), selection: null,
+      coords: Float32Array.from([1.5, 1.5]), colourIndex: Uint8Array.from([0]), labels: Int32Array.from([0]), selected: null,
     }, ident(3), style({ radius: 0.5, alpha: 0.5 }));
     const mid = new Uint8Array(buf.pixels.buffer, 4 * 4, 4);
     // Source-over of red at alpha 0.5 on white: (255, 127.5, 127.5) (common practice); 8-bit fixed point gives 127.
@@ -86,7 +86,7 @@ describe('Rasterizer.draw', () => {
       coords: Float32Array.from([0.2, 0.2, 10, 10, -1.7, 2, Number.NaN, 1]),
       colourIndex: Uint8Array.from([0, 0, 0, 0]),
       labels: Int32Array.from([0, 1, 2, 3]),
-      selection: null,
+      selected: null,
     }, ident(4), style());
     expect(picture(buf)).toEqual(['....', '....', 'r...', 'rr..']);
     expect(stats).toEqual({ pointsDrawn: 1, clustersDrawn: 1 });
@@ -98,7 +98,7 @@ describe('Rasterizer.draw', () => {
       coords: Float32Array.from([2.5, 2.5, 6.5, 2.5]),
       colourIndex: Uint8Array.from([0, 1]),
       labels: Int32Array.from([0, 1]),
-      selection: Uint8Array.from([0, 1]),
+      selected: Int32Array.from([1]),
     }, ident(5), style({ radius: 1, selectedRadius: 1, dimmedAlpha: 0.5 }));
     const p = picture(buf);
     expect(p[2].slice(5, 8)).toBe('bbb');
@@ -113,7 +113,7 @@ describe('Rasterizer.draw', () => {
 
   it('gives the same frame when drawn twice into a cleared buffer (scratch reused)', () => {
     const r = new Rasterizer();
-    const pts = { coords: Float32Array.from([1, 1, 3, 2]), colourIndex: Uint8Array.from([1, 0]), labels: Int32Array.from([0, 0]), selection: null };
+    const pts = { coords: Float32Array.from([1, 1, 3, 2]), colourIndex: Uint8Array.from([1, 0]), labels: Int32Array.from([0, 0]), selected: null };
     const a = buffer(5, 4), b = buffer(5, 4);
     r.draw(a, pts, ident(4), style({ alpha: 0.7 }));
     r.clear(b, WHITE);
