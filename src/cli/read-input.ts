@@ -1,11 +1,12 @@
 import { createHash, type Hash } from 'node:crypto';
-import { createReadStream, fstatSync, openSync, readdirSync, statSync } from 'node:fs';
+import { closeSync, createReadStream, fstatSync, openSync, readdirSync, readSync, statSync } from 'node:fs';
 import { basename, join, relative, sep } from 'node:path';
 import { CancelledError, InputError } from '../core/errors';
 import type { JobContext } from '../core/job';
 import { concatTables, type TablePart } from '../core/table/concat';
 import { detectFormat } from '../core/table/format';
 import { createTableReader, readsByOffset, readTableSource } from '../core/table/reader';
+import { hashingSource } from '../core/hash/hashing-source';
 import { openFileSource } from './file-source';
 import type { ReadOptions } from '../core/table/reader.types';
 import type { Table } from '../core/table/table';
@@ -63,45 +64,40 @@ export async function readInput(path: string, deps: ReadInputDeps): Promise<Inpu
 async function readFile(path: string, fileName: string, hash: Hash, deps: ReadInputDeps, progress: (f: number) => void): Promise<Table> {
   const fd = openSync(path, 'r');
   const size = fstatSync(fd).size;
-  let reader: ReturnType<typeof createTableReader> | null = null;
-  // Parquet is decoded by offset after the hashing pass, one row group in memory at a time, so
-  // this pass only hashes it (a quarter of the progress bar); other formats are pushed as they stream.
-  let byOffset = false;
-  let seen = 0;
+  const head = new Uint8Array(8);
+  const headBytes = readSync(fd, head, 0, 8, 0);
+  const format = detectFormat(fileName, head.subarray(0, headBytes));
+  const ctx: JobContext = {
+    progress: (_stage, f) => progress(f),
+    checkpoint: () => (deps.cancelled() ? Promise.reject(new CancelledError()) : new Promise((r) => setImmediate(r))),
+  };
+  if (readsByOffset(format)) {
+    // Parquet: read by offset, one row group in memory at a time, hashed on the way (one pass).
+    closeSync(fd);
+    const source = await openFileSource(path);
+    try {
+      const hashing = hashingSource(source, hash);
+      const table = await readTableSource(format, fileName, hashing, { totalBytes: size, ...deps.options }, ctx);
+      await hashing.finish();
+      return table;
+    } finally {
+      await source.close();
+    }
+  }
+  const reader = createTableReader(format, fileName, { totalBytes: size, ...deps.options });
   const stream = createReadStream(path, { fd, highWaterMark: CHUNK });
   try {
     for await (const chunk of stream as AsyncIterable<Buffer>) {
       if (deps.cancelled()) throw new CancelledError();
       const bytes = new Uint8Array(chunk.buffer, chunk.byteOffset, chunk.byteLength);
       hash.update(bytes);
-      seen += bytes.length;
-      if (reader === null && !byOffset) {
-        const format = detectFormat(fileName, bytes);
-        if (readsByOffset(format)) byOffset = true;
-        else reader = createTableReader(format, fileName, { totalBytes: size, ...deps.options });
-      }
-      if (reader) {
-        reader.push(bytes);
-        progress(size > 0 ? reader.bytesConsumed / size : 1);
-      } else progress(0.25 * (seen / size));
+      reader.push(bytes);
+      progress(size > 0 ? reader.bytesConsumed / size : 1);
     }
   } finally {
     stream.destroy();
   }
-  const ctx = (from: number): JobContext => ({
-    progress: (_stage, f) => progress(from + (1 - from) * f),
-    checkpoint: () => (deps.cancelled() ? Promise.reject(new CancelledError()) : new Promise((r) => setImmediate(r))),
-  });
-  if (byOffset) {
-    const source = await openFileSource(path);
-    try {
-      return await readTableSource('parquet', fileName, source, { totalBytes: size, ...deps.options }, ctx(0.25));
-    } finally {
-      await source.close();
-    }
-  }
-  reader ??= createTableReader(detectFormat(fileName, new Uint8Array(0)), fileName, { totalBytes: 0, ...deps.options });
-  return reader.finish(ctx(0));
+  return reader.finish(ctx);
 }
 
 /** Data files under a folder, in path order, skipping hidden and marker files (_SUCCESS, .crc). */

@@ -7,6 +7,7 @@ import { checkTable, type TableWarning } from '../core/table/checks';
 import { detectFormat, tableFormat } from '../core/table/format';
 import { createTableReader, readsByOffset, readTableSource } from '../core/table/reader';
 import { blobSource } from './blob-source';
+import { hashingSource } from '../core/hash/hashing-source';
 import type { ReadOptions, TableFormat } from '../core/table/reader.types';
 import { inferRoles } from '../core/table/roles';
 import type { RoleOverrides, Roles } from '../core/table/roles.types';
@@ -84,32 +85,28 @@ export const jobs = {
     const { blob } = payload;
     const total = blob ? blob.size : (Array.isArray(bytes) ? bytes : [bytes]).reduce((s, c) => s + c.length, 0);
     const hash = createSha256();
-    let reader: ReturnType<typeof createTableReader> | null = null;
-    let format: TableFormat | null = null;
     const formatOf = (first: Uint8Array) => (payload.format !== undefined ? tableFormat(payload.format) : detectFormat(payload.fileName, first));
-    // A File read by offset (Parquet) is only hashed in this pass; its row groups are read afterwards,
-    // one at a time, so the whole file is never held in memory.
-    const byOffset = (f: TableFormat) => blob !== undefined && readsByOffset(f);
+    const decoding: JobContext = { progress: (_stage, f) => ctx.progress('decoding', f), checkpoint: () => ctx.checkpoint() };
     ctx.progress('reading', 0);
-    let seen = 0;
-    for await (const slice of slicesOf(payload)) {
-      format ??= formatOf(slice);
-      hash.update(slice);
-      seen += slice.length;
-      if (byOffset(format)) {
-        ctx.progress('reading', seen / Math.max(1, total));
-      } else {
-        reader ??= createTableReader(format, payload.fileName, { totalBytes: total, ...payload.options });
+    let table: Table;
+    const blobFormat = blob ? formatOf(new Uint8Array(await blob.slice(0, 8).arrayBuffer())) : null;
+    if (blob && blobFormat && readsByOffset(blobFormat)) {
+      // A File read by offset (Parquet): one row group in memory at a time, hashed on the way.
+      const hashing = hashingSource(blobSource(blob), hash);
+      table = await readTableSource(blobFormat, payload.fileName, hashing, { totalBytes: total, ...payload.options }, decoding);
+      await hashing.finish();
+    } else {
+      let reader: ReturnType<typeof createTableReader> | null = null;
+      for await (const slice of slicesOf(payload)) {
+        reader ??= createTableReader(blobFormat ?? formatOf(slice), payload.fileName, { totalBytes: total, ...payload.options });
+        hash.update(slice);
         reader.push(slice);
         ctx.progress('reading', reader.bytesConsumed / Math.max(1, total));
+        await ctx.checkpoint();
       }
-      await ctx.checkpoint();
+      reader ??= createTableReader(blobFormat ?? formatOf(new Uint8Array(0)), payload.fileName, { totalBytes: total, ...payload.options });
+      table = await reader.finish(decoding);
     }
-    format ??= formatOf(new Uint8Array(0));
-    const decoding: JobContext = { progress: (_stage, f) => ctx.progress('decoding', f), checkpoint: () => ctx.checkpoint() };
-    const table = blob && byOffset(format)
-      ? await readTableSource(format, payload.fileName, blobSource(blob), { totalBytes: total, ...payload.options }, decoding)
-      : await (reader ?? createTableReader(format, payload.fileName, { totalBytes: total, ...payload.options })).finish(decoding);
     const roles = inferRoles(table, payload.overrides);
     const warnings = checkTable(table, roles);
     ctx.progress('reading', 1);
