@@ -128,6 +128,11 @@ export type ClusterRecord =
     iterations: number;
     inertia: number;
     converged: boolean;
+    /**
+     * Moves the refinement after the restarts accepted (split–merge rounds and single-window
+     * transfers, src/core/cluster/refine.ts); absent in records written before it existed.
+     */
+    refinements?: number;
     /** Present when not the default 'features'. */
     space?: ClusterSpace;
   }

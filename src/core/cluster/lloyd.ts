@@ -178,3 +178,21 @@ export function lloydStep(s: LloydState): void {
   s.iterations++;
   if ((changed === 0 && s.iterations > 1) || shift <= s.tolerance) s.converged = true;
 }
+
+/**
+ * Lloyd from the given centres to convergence or `maxIterations`, checking in between iterations;
+ * ends with an exact assignment so that labels, distances and `inertia` match the final centres.
+ */
+export async function runLloyd(
+  data: Float64Array, n: number, d: number, centres: Float64Array, tolerance: number, maxIterations: number,
+  checkpoint: () => Promise<void>, onIteration: (state: LloydState) => void = () => {},
+): Promise<LloydState> {
+  const state = initLloyd(data, n, d, centres, tolerance);
+  while (!state.converged && state.iterations < maxIterations) {
+    lloydStep(state);
+    onIteration(state);
+    await checkpoint();
+  }
+  assign(state);
+  return state;
+}

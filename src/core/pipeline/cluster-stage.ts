@@ -52,7 +52,7 @@ export async function clusterStage(
     const confidence = centreConfidence(x, n, dx, centres, c.k);
     const record: ClusterRecord = {
       method: 'kmeans', k: c.k, restarts: c.restarts, maxIterations: c.maxIterations, init: 'k-means++',
-      iterations: km.iterations, inertia: km.inertia, converged: km.converged, ...(space !== 'features' ? { space } : {}),
+      iterations: km.iterations, inertia: km.inertia, converged: km.converged, refinements: km.refinements, ...(space !== 'features' ? { space } : {}),
     };
     return { record, labels, confidence, centroids: space === 'map' ? clusterMeans(data, n, d, labels, c.k) : centres, sizes };
   }

@@ -20,7 +20,7 @@ describe('analyze: embedding choices', () => {
     expect(b.labels).toEqual(a.labels);
     expect(b.confidence).toEqual(a.confidence);
     expect(Object.keys(a.embed)).toEqual(['method', 'components', 'explainedVarianceRatio']);
-    expect(Object.keys(a.cluster)).toEqual(['method', 'k', 'restarts', 'maxIterations', 'init', 'iterations', 'inertia', 'converged']);
+    expect(Object.keys(a.cluster)).toEqual(['method', 'k', 'restarts', 'maxIterations', 'init', 'iterations', 'inertia', 'converged', 'refinements']);
     expect(a.placed).toBeUndefined();
     expect(a.tree).toBeUndefined();
   });
