@@ -63,14 +63,14 @@ export function heapHas(h: FlatHeaps, row: number, index: number): boolean {
   return false;
 }
 
-/** Sorts every row ascending by key (ties: lower index first); empty slots go last. */
-export function sortHeaps(h: FlatHeaps): void {
+/** Sorts rows from..to−1 (default all) ascending by key (ties: lower index first); empty slots go last. */
+export function sortHeaps(h: FlatHeaps, from = 0, to = h.n): void {
   const k = h.k;
   const order = new Int32Array(k);
   const keys = new Float64Array(k);
   const idx = new Int32Array(k);
   const cmp = (a: number, b: number) => keys[a] - keys[b] || idx[a] - idx[b];
-  for (let i = 0; i < h.n; i++) {
+  for (let i = from; i < to; i++) {
     const base = i * k;
     for (let t = 0; t < k; t++) {
       order[t] = t;

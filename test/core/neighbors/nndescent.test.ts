@@ -77,6 +77,29 @@ describe('approximateKnn (NN-descent)', () => {
     expect(neighbourRecall(cos, exactKnnSync(data, n, d, 10, 'cosine'))).toBeGreaterThanOrEqual(0.9);
   });
 
+  it('checkpoints between slices of every phase (trees, candidate sampling, local joins), so a cancel stops it early', async () => {
+    // Work per checkpoint bounded by rows, not by n: between two checkpoints at most about 1,024 rows
+    // of leaves, candidate sampling or local join, so every tree and every round checkpoints
+    // several times at 3,000 rows (counted with progress: reports at 0.3 end the trees).
+    let checkpoints = 0, inTrees = 0, treesDone = false;
+    const ctx = {
+      checkpoint: async () => { checkpoints++; if (!treesDone) inTrees++; },
+      progress: (_stage: string, fraction: number) => { if (fraction >= 0.3 - 1e-12) treesDone = true; },
+    };
+    const trees = 4;
+    const rounds = 2;
+    await approximateKnn(data, n, d, 15, { metric: 'euclidean', random: seededRandom(5), ctx, trees, maxIterations: rounds, delta: 0 });
+    // Each tree: one checkpoint before it plus one per slice of leaves (≥ 3 slices at 3,000 rows).
+    expect(inTrees).toBeGreaterThanOrEqual(trees * 4);
+    // Each round: ≥ 3 slices each of sampling, marking and joining.
+    expect(checkpoints - inTrees).toBeGreaterThanOrEqual(rounds * 9);
+    // A checkpoint that rejects stops the search.
+    let calls = 0;
+    const cancelling = { checkpoint: async () => { if (++calls > 10) throw new Error('cancelled'); }, progress: () => {} };
+    await expect(approximateKnn(data, n, d, 15, { metric: 'euclidean', random: seededRandom(5), ctx: cancelling })).rejects.toThrow('cancelled');
+    expect(calls).toBe(11);
+  });
+
   it('is exact on small inputs', async () => {
     const small = blobs(200, 5, 3, 2);
     const approx = await approximateKnn(small, 200, 5, 8, { metric: 'euclidean', random: seededRandom(1) });

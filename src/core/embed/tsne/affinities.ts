@@ -54,3 +54,25 @@ export function symmetrize(indices: Int32Array, conditional: Float64Array, n: nu
   rowStart[n] = w;
   return { n, rowStart, columns: columns.slice(0, w), values: values.slice(0, w) };
 }
+
+/**
+ * The entries of a symmetric P above the diagonal (column j > row i), in P's row order: each pair
+ * once, so the attractive forces can be summed once per pair and applied to both windows.
+ */
+export function upperPairs(p: Affinities): Affinities {
+  const { n, rowStart, columns, values } = p;
+  let count = 0;
+  for (let i = 0; i < n; i++) for (let e = rowStart[i]; e < rowStart[i + 1]; e++) if (columns[e] > i) count++;
+  const start = new Int32Array(n + 1);
+  const cols = new Int32Array(count);
+  const vals = new Float64Array(count);
+  let w = 0;
+  for (let i = 0; i < n; i++) {
+    start[i] = w;
+    for (let e = rowStart[i]; e < rowStart[i + 1]; e++) {
+      if (columns[e] > i) { cols[w] = columns[e]; vals[w++] = values[e]; }
+    }
+  }
+  start[n] = w;
+  return { n, rowStart: start, columns: cols, values: vals };
+}

@@ -5,8 +5,16 @@ import type { Repulsion } from './repulsion.types';
 export const INTERPOLATION_NODES = 3;
 /** Fewest boxes per dimension: 40 (the published default is 50; 40 lets small maps use a 256 × 256 grid). */
 export const MIN_BOXES = 40;
-/** Widest box, in map units (1, as the published method's default: one box per unit of span at least). */
+/** Widest box, in map units, on grids up to COARSE_GRID (1, as the published method's default: one box per unit of span at least). */
 export const MAX_BOX_WIDTH = 1;
+/**
+ * Widest box on grids of side COARSE_GRID and up: 1.5. A 1024 grid costs about four times a 512 one
+ * (over 0.2 s of CPU per step, most of a 100,000-window run), so spans from about 40 to 120 keep the
+ * 512 grid with boxes 0.5 to 1.5 wide (measured: see DEVELOPERS.md "Embeddings").
+ */
+export const COARSE_BOX_WIDTH = 1.5;
+/** Grid side from which boxes may be COARSE_BOX_WIDTH wide. */
+export const COARSE_GRID = 512;
 
 /** Largest FFT grid side; past a span of about 170 the boxes grow wider than 1 instead. */
 const MAX_GRID = 1024;
@@ -34,7 +42,8 @@ function quantize(width: number): number {
  * themselves (rather than expanding y_i − y_j into charges 1, y_j) keeps the error relative to the
  * force, whatever the map's offset and size. The normaliser needs only the total
  * Σ_i Σ_j w_ij ≈ Σ_nodes q · (w ∗ q), taken in the frequency domain (Parseval), minus the n self terms.
- * B = max(40, ⌈span · 2^(1/16)⌉) (boxes at most 1 wide), raised to the most boxes the chosen L
+ * B = max(40, ⌈span · 2^(1/16)⌉) (boxes at most 1 wide) while L < 512, and B = max(40,
+ * ⌈span · 2^(1/16) / 1.5⌉) (boxes at most 1.5 wide) for L ≥ 512, raised to the most boxes the chosen L
  * allows; the box width is span / B rounded up to the ladder 2^(k/16), so the kernel transforms
  * are reused until it moves a step. L is capped at 1024 (boxes then grow wider than 1). Cost per
  * call: O(n·p²) plus two L × L FFTs.
@@ -50,6 +59,8 @@ export class FftRepulsion implements Repulsion {
   private readonly wx: Float64Array;
   private readonly wy: Float64Array;
   private fft: Fft | null = null;
+  /** Side L of the FFT grid used by the latest compute() (0 before the first). */
+  gridSide = 0;
   /** Grid size and node spacing the kernel transforms were computed for. */
   private kernelSize = 0;
   private kernelSpacing = 0;
@@ -86,9 +97,10 @@ export class FftRepulsion implements Repulsion {
     }
     const span = Math.max(maxX - minX, maxY - minY, 1e-12) * (1 + 1e-9);
     const cx = (minX + maxX) / 2, cy = (minY + maxY) / 2;
-    const boxesMin = Math.max(MIN_BOXES, Math.ceil(span / (this.maxBoxWidth / LADDER)));
+    const fine = Math.max(MIN_BOXES, Math.ceil(span / (this.maxBoxWidth / LADDER)));
+    const coarse = Math.max(MIN_BOXES, Math.ceil(span / (Math.max(this.maxBoxWidth, COARSE_BOX_WIDTH) / LADDER)));
     let size = 2;
-    while (Math.floor(size / 2 / p) < boxesMin && size < MAX_GRID) size *= 2;
+    while (Math.floor(size / 2 / p) < (size >= COARSE_GRID ? coarse : fine) && size < MAX_GRID) size *= 2;
     const boxes = Math.floor(size / 2 / p);
     const m = boxes * p;
     // Box width on a geometric ladder (so the kernel transforms are reused while it holds); the
@@ -96,6 +108,7 @@ export class FftRepulsion implements Repulsion {
     const boxWidth = quantize(span / boxes);
     const x0 = cx - (boxes * boxWidth) / 2, y0 = cy - (boxes * boxWidth) / 2;
     this.ensureGrids(size);
+    this.gridSide = size;
     if (this.kernelSize !== size || this.kernelSpacing !== boxWidth / p) this.kernels(size, m, boxWidth / p);
     this.locate(y, n, x0, y0, boxWidth, boxes);
     this.spread(n, size);

@@ -1,10 +1,12 @@
-import type { Affinities } from './affinities';
+import { upperPairs, type Affinities } from './affinities';
 import type { Repulsion } from './repulsion.types';
 
 /** Work arrays of the gradient, allocated once per run. */
 export interface GradientBuffers {
   attract: Float64Array;
   repel: Float64Array;
+  /** P's pairs above the diagonal (upperPairs), kept for the P they were taken from. */
+  pairs?: { of: Affinities; upper: Affinities };
 }
 
 export function gradientBuffers(n: number): GradientBuffers {
@@ -15,8 +17,8 @@ export function gradientBuffers(n: number): GradientBuffers {
  * t-SNE gradient into `grad` (n × 2): 4 · (exaggeration · Σ_j p_ij w_ij (y_i − y_j)
  * − Σ_j w_ij² (y_i − y_j) / Z), with w_ij = 1 / (1 + |y_i − y_j|²) and Z = Σ_{k≠l} w_kl; the
  * repulsive sums come from `repulsion` (Barnes–Hut or FFT interpolation), the attractive ones from
- * one pass over the sparse P. Returns Z, and when `wantCost` the KL divergence KL(P ‖ Q) of the
- * un-exaggerated P.
+ * one pass over the pairs of the (symmetric) sparse P above its diagonal. Returns Z, and when
+ * `wantCost` the KL divergence KL(P ‖ Q) of the un-exaggerated P.
  */
 export function gradient(
   y: Float64Array, p: Affinities, repulsion: Repulsion, exaggeration: number,
@@ -25,7 +27,10 @@ export function gradient(
   const n = p.n;
   const z = repulsion.compute(y, n, buf.repel);
   const { attract } = buf;
-  const { rowStart, columns, values } = p;
+  // P is symmetric: each pair is visited once (j > i) and its force applied to both windows.
+  if (buf.pairs?.of !== p) buf.pairs = { of: p, upper: upperPairs(p) };
+  const { rowStart, columns, values } = buf.pairs.upper;
+  attract.fill(0);
   let plogp = 0;
   let plogw = 0;
   for (let i = 0; i < n; i++) {
@@ -36,11 +41,16 @@ export function gradient(
       const dx = yi - y[2 * j], dy = yj - y[2 * j + 1];
       const w = 1 / (1 + dx * dx + dy * dy);
       const f = values[e] * w;
-      fx += f * dx; fy += f * dy;
+      const gx = f * dx, gy = f * dy;
+      fx += gx; fy += gy;
+      attract[2 * j] -= gx; attract[2 * j + 1] -= gy;
       if (wantCost && values[e] > 0) { plogp += values[e] * Math.log(values[e]); plogw += values[e] * Math.log(w); }
     }
-    attract[2 * i] = fx; attract[2 * i + 1] = fy;
+    attract[2 * i] += fx; attract[2 * i + 1] += fy;
   }
+  // Each pair stands for p_ij and p_ji.
+  plogp *= 2;
+  plogw *= 2;
   const { repel } = buf;
   const invZ = 1 / z;
   for (let t = 0; t < 2 * n; t++) grad[t] = 4 * (exaggeration * attract[t] - repel[t] * invZ);

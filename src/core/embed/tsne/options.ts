@@ -4,7 +4,7 @@ import { OptionError } from '../../errors';
 export interface TsneOptions {
   /** Effective number of neighbours each window's conditional distribution spreads over (default 30). */
   perplexity: number;
-  /** Gradient-descent iterations in all, early exaggeration included (default 1000). */
+  /** Gradient-descent iterations in all, early exaggeration included (default 750: 250 exaggerated + 500). */
   iterations: number;
   /** Factor on the attractive forces during the first iterations (default 12). */
   earlyExaggeration: number;
@@ -34,7 +34,7 @@ export interface TsneOptions {
 
 export const TSNE_DEFAULTS: Readonly<TsneOptions> = Object.freeze({
   perplexity: 30,
-  iterations: 1000,
+  iterations: 750,
   earlyExaggeration: 12,
   exaggerationIterations: 250,
   learningRate: 'auto',

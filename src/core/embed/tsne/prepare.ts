@@ -58,9 +58,10 @@ export function* prepareTsne(
   const conditional = new Float64Array(n * k);
   for (let from = 0; from < n; from += SLICE) {
     conditionalProbabilities(sq, n, k, o.perplexity, from, Math.min(n, from + SLICE), conditional);
+    yield 0.92 + 0.03 * (Math.min(n, from + SLICE) / n);
   }
-  yield 0.95;
   const affinities = symmetrize(knn.indices, conditional, n, k);
+  yield 0.97;
   return { affinities, y: initialCoordinates(x, n, dim, o) };
 }
 

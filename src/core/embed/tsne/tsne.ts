@@ -1,4 +1,4 @@
-import type { Affinities } from './affinities';
+import { upperPairs, type Affinities } from './affinities';
 import { gradient, gradientBuffers, type GradientBuffers } from './gradient';
 import { BarnesHutRepulsion } from './barnes-hut';
 import { FftRepulsion } from './fft-repulsion';
@@ -52,6 +52,7 @@ export class Tsne {
   /** Prepares the run in slices, yielding the fraction of the preparation done after each. */
   *initSlices(given?: NeighbourInput): Generator<number, void> {
     const prepared = yield* prepareTsne(this.data, this.n, this.d, this.options, given);
+    yield 0.99;
     this.affinities = prepared.affinities;
     this.y = prepared.y;
     this.update = new Float64Array(2 * this.n);
@@ -59,6 +60,8 @@ export class Tsne {
     this.grad = new Float64Array(2 * this.n);
     this.repel = this.repulsion === 'fft' ? new FftRepulsion(this.n) : new BarnesHutRepulsion(this.n, this.options.theta);
     this.buf = gradientBuffers(this.n);
+    // The pairs above P's diagonal, here rather than in the first step (a long one at large n).
+    this.buf.pairs = { of: prepared.affinities, upper: upperPairs(prepared.affinities) };
     this.iteration = 0;
     this.cost = undefined;
   }
