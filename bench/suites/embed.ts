@@ -13,6 +13,7 @@ import { PCA as DruidPCA, TSNE as DruidTSNE } from '@saehrimnir/druidjs';
 import TsneJs from 'tsne-js';
 import { pca } from '../../src/core/embed/pca';
 import { runTsne } from '../../src/core/embed/tsne';
+import { TSNE_DEFAULTS } from '../../src/core/embed/tsne/options';
 import { quietContext } from '../../src/core/job';
 import { sampledTrustworthiness } from '../../src/core/metrics/trustworthiness';
 import { seededRandom } from '../../src/core/random';
@@ -34,6 +35,8 @@ const BUDGET_S = 300;
 /** At or below this n every implementation of ours runs 3 times (median); above it once. */
 const SMALL_N = 2000;
 const RESULTS = 'bench-results/embed.jsonl';
+/** Gradient steps for every t-SNE here: ours by default (250 exaggerated + 500), and the peers alike. */
+const ITERATIONS = TSNE_DEFAULTS.iterations;
 
 export interface Dataset {
   name: string;
@@ -134,8 +137,8 @@ async function benchOurTsne(ds: Dataset, key: string): Promise<void> {
 
 /** druid.js TSNE (exact, O(n²) per iteration): skipped when its estimated time passes the budget. */
 async function benchDruidTsne(ds: Dataset, key: string): Promise<void> {
-  // Estimate from the measurement in ../shared/PEERS.md: 41 s at 2k, growing as n².
-  const estimate = 41 * (ds.n / 2000) ** 2;
+  // Estimate from the measurement in ../shared/PEERS.md: 41 s at 2k for 1,000 iterations, growing as n².
+  const estimate = 41 * (ds.n / 2000) ** 2 * (ITERATIONS / 1000);
   const base = { suite: 'embed' as const, method: 't-SNE', impl: 'druid.js 0.9.0', dataset: key, n: ds.n, d: ds.d, runs: 1 };
   if (estimate > BUDGET_S) {
     recordRow({ ...base, seconds: null, peak_mib: null, trustworthiness: null, note: `skipped: estimated ${estimate.toFixed(0)} s > ${BUDGET_S} s budget (O(n²) from 41 s at 2k)` });
@@ -170,7 +173,7 @@ async function benchPca(ds: Dataset, key: string): Promise<void> {
  * estimate, growing as n², fits the budget, and reported as skipped elsewhere.
  */
 async function benchTsneJs(ds: Dataset, key: string): Promise<void> {
-  const estimate = 251 * (ds.n / 500) ** 2;
+  const estimate = 251 * (ds.n / 500) ** 2 * (ITERATIONS / 1000);
   const base = { suite: 'embed' as const, method: 't-SNE', impl: 'tsne-js 1.0.3', dataset: key, n: ds.n, d: ds.d, runs: 1 };
   if (estimate > BUDGET_S) {
     recordRow({ ...base, seconds: null, peak_mib: null, trustworthiness: null, note: `skipped: estimated ${estimate.toFixed(0)} s > ${BUDGET_S} s budget (O(n²) from 251 s at n = 500)` });
@@ -190,10 +193,10 @@ function peerTsne(peer: string, ds: Dataset): number[] {
   let y: ArrayLike<number>[];
   if (peer === 'druid-tsne') {
     // Same perplexity and iterations as ours; druid's own learning rate (epsilon 10) and seed.
-    y = new DruidTSNE(input, { perplexity: 30, d: 2, seed: 1 }).transform(1000) as unknown as ArrayLike<number>[];
+    y = new DruidTSNE(input, { perplexity: 30, d: 2, seed: 1 }).transform(ITERATIONS) as unknown as ArrayLike<number>[];
   } else if (peer === 'tsne-js') {
     // Same perplexity and iterations as ours; tsne-js's documented defaults otherwise.
-    const model = new TsneJs({ dim: 2, perplexity: 30, earlyExaggeration: 4, learningRate: 100, nIter: 1000, metric: 'euclidean' });
+    const model = new TsneJs({ dim: 2, perplexity: 30, earlyExaggeration: 4, learningRate: 100, nIter: ITERATIONS, metric: 'euclidean' });
     model.init({ data: input.map((r) => Array.from(r)), type: 'dense' });
     model.run();
     y = model.getOutput() as ArrayLike<number>[];
