@@ -15,24 +15,37 @@ export function columnMeans(data: ArrayLike<number>, n: number, d: number): Floa
  */
 export function covariance(data: ArrayLike<number>, n: number, d: number, means: Float64Array): Float64Array {
   const c = new Float64Array(d * d);
+  addCovarianceRows(data, d, means, 0, n, c);
+  return finishCovariance(c, d, n);
+}
+
+/**
+ * Adds rows [from, to) to the upper triangle of `sums` (d × d, products of centred values). Callers
+ * that must stay responsive feed the rows in slices, in order (the sums are then the same).
+ */
+export function addCovarianceRows(data: ArrayLike<number>, d: number, means: Float64Array, from: number, to: number, sums: Float64Array): void {
   const row = new Float64Array(d);
-  for (let i = 0; i < n; i++) {
+  for (let i = from; i < to; i++) {
     const o = i * d;
     for (let j = 0; j < d; j++) row[j] = data[o + j] - means[j];
     for (let a = 0; a < d; a++) {
       const xa = row[a];
       if (xa === 0) continue;
       const ca = a * d;
-      for (let b = a; b < d; b++) c[ca + b] += xa * row[b];
+      for (let b = a; b < d; b++) sums[ca + b] += xa * row[b];
     }
   }
+}
+
+/** Turns the upper-triangle sums of n rows into the full covariance matrix (in place). */
+export function finishCovariance(sums: Float64Array, d: number, n: number): Float64Array {
   const denom = n > 1 ? n - 1 : 1;
   for (let a = 0; a < d; a++) {
     for (let b = a; b < d; b++) {
-      const v = c[a * d + b] / denom;
-      c[a * d + b] = v;
-      c[b * d + a] = v;
+      const v = sums[a * d + b] / denom;
+      sums[a * d + b] = v;
+      sums[b * d + a] = v;
     }
   }
-  return c;
+  return sums;
 }

@@ -23,9 +23,15 @@ export interface PcaResult {
  * of each component is positive (first one on ties).
  */
 export function pca(data: ArrayLike<number>, n: number, d: number, nComponents: number): PcaResult {
-  const c = Math.min(nComponents, d);
   const mean = columnMeans(data, n, d);
-  const { values, vectors } = symmetricEigen(covariance(data, n, d, mean), d);
+  const axes = pcaAxes(covariance(data, n, d, mean), mean, n, d, nComponents);
+  return { ...axes, scores: project(data, n, d, mean, axes.components, axes.nComponents) };
+}
+
+/** The principal axes from a covariance matrix (what `pca` returns, without the scores). */
+export function pcaAxes(cov: Float64Array, mean: Float64Array, n: number, d: number, nComponents: number): Omit<PcaResult, 'scores'> {
+  const c = Math.min(nComponents, d);
+  const { values, vectors } = symmetricEigen(cov, d);
   let total = 0;
   for (let k = 0; k < d; k++) total += Math.max(0, values[k]);
   const components = new Float64Array(c * d);
@@ -42,8 +48,7 @@ export function pca(data: ArrayLike<number>, n: number, d: number, nComponents: 
     explainedVarianceRatio[k] = total > 0 ? ev / total : 0;
     singularValues[k] = Math.sqrt(ev * Math.max(1, n - 1));
   }
-  const scores = project(data, n, d, mean, components, c);
-  return { nComponents: c, components, explainedVariance, explainedVarianceRatio, singularValues, mean, scores };
+  return { nComponents: c, components, explainedVariance, explainedVarianceRatio, singularValues, mean };
 }
 
 /** Projects rows onto the components: (x - mean) · component, row-major n × c. */

@@ -1,4 +1,5 @@
-import { pca } from '../pca';
+import { addCovarianceRows, columnMeans, finishCovariance } from '../covariance';
+import { pca, pcaAxes, project } from '../pca';
 import { OptionError } from '../../errors';
 import { exactKnnSearch } from '../../neighbors/exact';
 import type { Knn } from '../../neighbors/knn.types';
@@ -62,7 +63,8 @@ export function* prepareTsne(
   }
   const affinities = symmetrize(knn.indices, conditional, n, k);
   yield 0.97;
-  return { affinities, y: initialCoordinates(x, n, dim, o) };
+  const y = yield* initialCoordinates(x, n, dim, o);
+  return { affinities, y };
 }
 
 /** Neighbours per window for the affinities: min(n − 1, ⌊3 · perplexity⌋ + 1) (common practice). */
@@ -95,22 +97,31 @@ export function reduceForTsne(data: Float64Array, n: number, d: number, o: TsneO
  * 'pca': the first two principal-axis scores scaled so that the first has standard deviation 1e-4
  * (common practice), plus seeded N(0, (0.01 · 1e-4)²) jitter; 'random': N(0, 1e-4²) per coordinate.
  */
-export function initialCoordinates(x: Float64Array, n: number, d: number, o: TsneOptions): Float64Array {
+export function* initialCoordinates(x: Float64Array, n: number, d: number, o: TsneOptions): Generator<number, Float64Array> {
   const random = seededRandom(o.seed);
   const y = new Float64Array(2 * n);
   if (o.init === 'random') {
     for (let t = 0; t < 2 * n; t++) y[t] = INIT_SD * normal(random);
     return y;
   }
-  const p = pca(x, n, d, 2);
-  const c = p.nComponents;
+  // The covariance is summed a slice of rows at a time so that a driver can checkpoint (the
+  // same sums as pca's single pass).
+  const mean = columnMeans(x, n, d);
+  const sums = new Float64Array(d * d);
+  for (let from = 0; from < n; from += 8 * SLICE) {
+    addCovarianceRows(x, d, mean, from, Math.min(n, from + 8 * SLICE), sums);
+    yield 0.97 + 0.02 * (Math.min(n, from + 8 * SLICE) / n);
+  }
+  const axes = pcaAxes(finishCovariance(sums, d, n), mean, n, d, 2);
+  const c = axes.nComponents;
+  const scores = project(x, n, d, mean, axes.components, c);
   let ss = 0;
-  for (let i = 0; i < n; i++) ss += p.scores[i * c] ** 2;
+  for (let i = 0; i < n; i++) ss += scores[i * c] ** 2;
   const sd = Math.sqrt(ss / n);
   const scale = sd > 0 ? INIT_SD / sd : 0;
   for (let i = 0; i < n; i++) {
     for (let a = 0; a < 2; a++) {
-      const score = a < c ? p.scores[i * c + a] : 0;
+      const score = a < c ? scores[i * c + a] : 0;
       y[2 * i + a] = score * scale + JITTER * INIT_SD * normal(random);
     }
   }
