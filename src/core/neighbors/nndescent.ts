@@ -4,7 +4,7 @@ import type { Random } from '../random';
 import { clearHeaps, createHeaps, heapHas, heapPush, sortHeaps, type FlatHeaps } from './heap';
 import type { Knn, Metric } from './knn.types';
 import { metricRows, toMetricDistances } from './rows';
-import { rpTreeLeaves } from './rp-tree';
+import { rpTreeLeavesAsync } from './rp-tree';
 
 export interface ApproximateKnnOptions {
   metric: Metric;
@@ -54,7 +54,7 @@ export async function approximateKnn(
     const leafSize = Math.max(10, kk);
     for (let t = 0; t < trees; t++) {
       await ctx.checkpoint();
-      const leaves = rpTreeLeaves(x, n, d, leafSize, options.random);
+      const leaves = await rpTreeLeavesAsync(x, n, d, leafSize, options.random, () => ctx.checkpoint());
       const { order, starts } = leaves;
       // Slices of whole leaves holding about ROWS_PER_SLICE rows each, a checkpoint before each.
       for (let leaf = 0; leaf + 1 < starts.length;) {

@@ -16,11 +16,36 @@ export interface RpLeaves {
  * share a leaf, which makes the leaves a cheap first guess at each row's neighbours.
  */
 export function rpTreeLeaves(x: Float64Array, n: number, d: number, leafSize: number, random: Random): RpLeaves {
+  const steps = rpTreeSteps(x, n, d, leafSize, random);
+  for (;;) {
+    const r = steps.next();
+    if (r.done) return r.value;
+  }
+}
+
+/** Rows partitioned between the yields of rpTreeSteps (a slice of work between checkpoints). */
+const ROWS_PER_YIELD = 16_384;
+
+/** rpTreeLeaves awaiting `checkpoint` between slices of its work (the same leaves). */
+export async function rpTreeLeavesAsync(
+  x: Float64Array, n: number, d: number, leafSize: number, random: Random, checkpoint: () => Promise<void>,
+): Promise<RpLeaves> {
+  const steps = rpTreeSteps(x, n, d, leafSize, random);
+  for (;;) {
+    const r = steps.next();
+    if (r.done) return r.value;
+    await checkpoint();
+  }
+}
+
+/** The tree built node by node, yielding once about ROWS_PER_YIELD rows have been partitioned. */
+function* rpTreeSteps(x: Float64Array, n: number, d: number, leafSize: number, random: Random): Generator<void, RpLeaves> {
   const order = new Int32Array(n);
   for (let i = 0; i < n; i++) order[i] = i;
   const side = new Uint8Array(n);
   const normal = new Float64Array(d);
   const starts: number[] = [];
+  let work = 0;
   // Explicit stack of [lo, hi) ranges; pushed right first so leaves come out left to right.
   const stack: number[] = [0, n];
   while (stack.length > 0) {
@@ -32,6 +57,11 @@ export function rpTreeLeaves(x: Float64Array, n: number, d: number, leafSize: nu
     }
     const mid = splitRange(x, d, order, lo, hi, side, normal, random);
     stack.push(mid, hi, lo, mid);
+    work += hi - lo;
+    if (work >= ROWS_PER_YIELD) {
+      work = 0;
+      yield;
+    }
   }
   starts.sort((a, b) => a - b);
   starts.push(n);

@@ -13,6 +13,18 @@ export interface Affinities {
  * that have i as a neighbour but are not among i's neighbours, in window order: deterministic.
  */
 export function symmetrize(indices: Int32Array, conditional: Float64Array, n: number, k: number): Affinities {
+  const steps = symmetrizeSteps(indices, conditional, n, k);
+  for (;;) {
+    const r = steps.next();
+    if (r.done) return r.value;
+  }
+}
+
+/** Rows per slice of symmetrizeSteps between its yields. */
+const SYM_ROWS = 16_384;
+
+/** symmetrize in slices of rows, yielding the fraction done after each (the same result). */
+export function* symmetrizeSteps(indices: Int32Array, conditional: Float64Array, n: number, k: number): Generator<number, Affinities> {
   // Per row: k own entries, plus one per reverse edge; duplicates are merged below.
   const count = new Int32Array(n + 1);
   for (let i = 0; i < n; i++) {
@@ -24,17 +36,20 @@ export function symmetrize(indices: Int32Array, conditional: Float64Array, n: nu
   const cols = new Int32Array(start[n]);
   const vals = new Float64Array(start[n]);
   const fill = start.slice(0, n);
+  yield 0.1;
   for (let i = 0; i < n; i++) {
     for (let t = 0; t < k; t++) {
       const j = indices[i * k + t];
       cols[fill[i]] = j; vals[fill[i]++] = conditional[i * k + t];
     }
   }
+  yield 0.2;
   for (let i = 0; i < n; i++) {
     for (let t = 0; t < k; t++) {
       const j = indices[i * k + t];
       cols[fill[j]] = i; vals[fill[j]++] = conditional[i * k + t];
     }
+    if ((i + 1) % SYM_ROWS === 0) yield 0.2 + 0.4 * ((i + 1) / n);
   }
   // Merge duplicate columns in each row with a position map (-1 = not seen in this row).
   const seen = new Int32Array(n).fill(-1);
@@ -50,6 +65,7 @@ export function symmetrize(indices: Int32Array, conditional: Float64Array, n: nu
       if (seen[j] >= rowStart[i]) { values[seen[j]] += vals[e] * scale; continue; }
       seen[j] = w; columns[w] = j; values[w++] = vals[e] * scale;
     }
+    if ((i + 1) % SYM_ROWS === 0) yield 0.6 + 0.4 * ((i + 1) / n);
   }
   rowStart[n] = w;
   return { n, rowStart, columns: columns.slice(0, w), values: values.slice(0, w) };

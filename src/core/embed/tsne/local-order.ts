@@ -2,7 +2,7 @@ import type { JobContext } from '../../job';
 import type { Knn } from '../../neighbors/knn.types';
 import { approximateKnn, type ApproximateKnnOptions } from '../../neighbors/nndescent';
 import type { Random } from '../../random';
-import { rpTreeLeaves } from '../../neighbors/rp-tree';
+import { rpTreeLeavesAsync } from '../../neighbors/rp-tree';
 
 /** Rows per leaf of the ordering tree (leaves sit next to each other in memory). */
 const ORDER_LEAF = 64;
@@ -18,7 +18,7 @@ const ORDER_LEAF = 64;
 export async function approximateKnnLocal(
   x: Float64Array, n: number, d: number, k: number, options: ApproximateKnnOptions & { ctx: JobContext }, orderRandom: Random,
 ): Promise<Knn> {
-  const { order } = rpTreeLeaves(x, n, d, ORDER_LEAF, orderRandom);
+  const { order } = await rpTreeLeavesAsync(x, n, d, ORDER_LEAF, orderRandom, () => options.ctx.checkpoint());
   await options.ctx.checkpoint();
   const local = new Float64Array(n * d);
   for (let p = 0; p < n; p++) local.set(x.subarray(order[p] * d, order[p] * d + d), p * d);

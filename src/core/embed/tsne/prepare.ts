@@ -4,7 +4,7 @@ import { OptionError } from '../../errors';
 import { exactKnnSearch } from '../../neighbors/exact';
 import type { Knn } from '../../neighbors/knn.types';
 import { normal, seededRandom } from '../../random';
-import { symmetrize, type Affinities } from './affinities';
+import { symmetrizeSteps, type Affinities } from './affinities';
 import type { TsneOptions } from './options';
 import { conditionalProbabilities } from './perplexity';
 
@@ -61,7 +61,13 @@ export function* prepareTsne(
     conditionalProbabilities(sq, n, k, o.perplexity, from, Math.min(n, from + SLICE), conditional);
     yield 0.92 + 0.03 * (Math.min(n, from + SLICE) / n);
   }
-  const affinities = symmetrize(knn.indices, conditional, n, k);
+  const sym = symmetrizeSteps(knn.indices, conditional, n, k);
+  let step = sym.next();
+  while (!step.done) {
+    yield 0.95 + 0.02 * step.value;
+    step = sym.next();
+  }
+  const affinities = step.value;
   yield 0.97;
   const y = yield* initialCoordinates(x, n, dim, o);
   return { affinities, y };
