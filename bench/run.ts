@@ -10,6 +10,7 @@ const SUITES: Record<string, () => Promise<{ run(quick: boolean): Promise<void> 
   map: () => import('./suites/map'),
   cluster: () => import('./suites/cluster'),
   traces: () => import('./suites/traces'),
+  cancel: () => import('./suites/cancel'),
 };
 
 const args = process.argv.slice(2);

@@ -18,6 +18,21 @@ const SEARCH_STEPS = 64;
  * bisection. `knn` excludes the window itself, so neighbors = knn.k + 1.
  */
 export function smoothKnnDistances(knn: Knn): { rhos: Float64Array; sigmas: Float64Array } {
+  return finish(smoothKnnSteps(knn));
+}
+
+/** Rows per slice between the yields of the step generators below. */
+const ROWS_PER_YIELD = 16_384;
+
+/** Runs a step generator to its end. */
+function finish<T>(steps: Generator<void, T>): T {
+  for (;;) {
+    const r = steps.next();
+    if (r.done) return r.value;
+  }
+}
+
+function* smoothKnnSteps(knn: Knn): Generator<void, { rhos: Float64Array; sigmas: Float64Array }> {
   const { n, k, distances } = knn;
   const target = Math.log2(k + 1);
   const rhos = new Float64Array(n);
@@ -55,6 +70,7 @@ export function smoothKnnDistances(knn: Knn): { rhos: Float64Array; sigmas: Floa
     const floor = MIN_K_DIST_SCALE * (rho > 0 ? sum / (k + 1) : meanAll);
     rhos[i] = rho;
     sigmas[i] = Math.max(mid, floor);
+    if ((i + 1) % ROWS_PER_YIELD === 0) yield;
   }
   return { rhos, sigmas };
 }
@@ -65,8 +81,22 @@ export function smoothKnnDistances(knn: Knn): { rhos: Float64Array; sigmas: Floa
  * w + w' − w·w'. Returned as CSR with both directions of every edge; edges of weight 0 are left out.
  */
 export function fuzzySimplicialSet(knn: Knn): SparseGraph {
+  return finish(fuzzySimplicialSteps(knn));
+}
+
+/** fuzzySimplicialSet awaiting `checkpoint` between slices of rows (the same graph). */
+export async function fuzzySimplicialSetAsync(knn: Knn, checkpoint: () => Promise<void>): Promise<SparseGraph> {
+  const steps = fuzzySimplicialSteps(knn);
+  for (;;) {
+    const r = steps.next();
+    if (r.done) return r.value;
+    await checkpoint();
+  }
+}
+
+function* fuzzySimplicialSteps(knn: Knn): Generator<void, SparseGraph> {
   const { n, k, indices, distances } = knn;
-  const { rhos, sigmas } = smoothKnnDistances(knn);
+  const { rhos, sigmas } = yield* smoothKnnSteps(knn);
   const directed = new Float64Array(n * k);
   for (let i = 0; i < n; i++) {
     for (let t = 0; t < k; t++) {
@@ -75,6 +105,7 @@ export function fuzzySimplicialSet(knn: Knn): SparseGraph {
       const excess = distances[e] - rhos[i];
       directed[e] = j < 0 || j === i ? 0 : excess <= 0 || sigmas[i] === 0 ? 1 : Math.exp(-excess / sigmas[i]);
     }
+    if ((i + 1) % ROWS_PER_YIELD === 0) yield;
   }
   // COO of the union: an edge present both ways is emitted once from each side with the union
   // weight; an edge present one way only is emitted in both directions.
@@ -102,7 +133,9 @@ export function fuzzySimplicialSet(knn: Knn): SparseGraph {
         heads[m] = j; tails[m] = i; ws[m] = w; m++;
       }
     }
+    if ((i + 1) % ROWS_PER_YIELD === 0) yield;
   }
+  yield;
   return toCsr(n, heads, tails, ws, m);
 }
 

@@ -5,7 +5,7 @@ import { approximateKnn } from '../../neighbors/nndescent';
 import { normal, seededRandom, type Random } from '../../random';
 import { pca } from '../pca';
 import { fitAB } from './fit-ab';
-import { fuzzySimplicialSet, type SparseGraph } from './fuzzy-graph';
+import { fuzzySimplicialSetAsync, type SparseGraph } from './fuzzy-graph';
 import { LayoutOptimizer } from './layout';
 import { resolveUmapOptions, type ResolvedUmapOptions, type UmapOptions } from './options';
 import { spectralLayout } from './spectral';
@@ -45,7 +45,7 @@ export class Umap {
     this.neighbours = await approximateKnn(this.data, this.n, this.d, o.neighbors - 1, { metric: o.metric, random: this.random, ctx });
     await ctx.checkpoint();
     ctx.progress('graph', 0);
-    this.fuzzy = fuzzySimplicialSet(this.neighbours);
+    this.fuzzy = await fuzzySimplicialSetAsync(this.neighbours, () => ctx.checkpoint());
     ctx.progress('graph', 1);
     await ctx.checkpoint();
     ctx.progress('init', 0);
