@@ -135,16 +135,27 @@ async function benchOurTsne(ds: Dataset, key: string): Promise<void> {
   recordRow({ suite: 'embed', method: 't-SNE', impl: 'gleaner', dataset: key, n: ds.n, d: ds.d, seconds: m.seconds, peak_mib: m.peakMiB, trustworthiness: quality(ds, m.result), runs });
 }
 
-/** druid.js TSNE (exact, O(n²) per iteration): skipped when its estimated time passes the budget. */
-async function benchDruidTsne(ds: Dataset, key: string): Promise<void> {
-  // Estimate from the measurement in ../shared/PEERS.md: 41 s at 2k for 1,000 iterations, growing as n².
-  const estimate = 41 * (ds.n / 2000) ** 2 * (ITERATIONS / 1000);
-  const base = { suite: 'embed' as const, method: 't-SNE', impl: 'druid.js 0.9.0', dataset: key, n: ds.n, d: ds.d, runs: 1 };
+/**
+ * The exact (O(n²) per iteration) t-SNE peers, each in a child process, skipped when the time
+ * estimated from a measured run, growing as n² and with the iteration count, passes the budget:
+ * - druid.js 0.9.0 TSNE: 41 s at n = 2,000 for 1,000 iterations (../shared/PEERS.md);
+ * - tsne-js 1.0.3 (ndarray-based): 251 s at n = 500, d = 50, 1,000 iterations, measured here
+ *   (load average about 4, 2026-12-02).
+ */
+const EXACT_PEERS = {
+  'druid-tsne': { impl: 'druid.js 0.9.0', seconds: 41, atN: 2000 },
+  'tsne-js': { impl: 'tsne-js 1.0.3', seconds: 251, atN: 500 },
+} as const;
+
+async function benchExactTsne(peer: keyof typeof EXACT_PEERS, ds: Dataset, key: string): Promise<void> {
+  const { impl, seconds, atN } = EXACT_PEERS[peer];
+  const estimate = seconds * (ds.n / atN) ** 2 * (ITERATIONS / 1000);
+  const base = { suite: 'embed' as const, method: 't-SNE', impl, dataset: key, n: ds.n, d: ds.d, runs: 1 };
   if (estimate > BUDGET_S) {
-    recordRow({ ...base, seconds: null, peak_mib: null, trustworthiness: null, note: `skipped: estimated ${estimate.toFixed(0)} s > ${BUDGET_S} s budget (O(n²) from 41 s at 2k)` });
+    recordRow({ ...base, seconds: null, peak_mib: null, trustworthiness: null, note: `skipped: estimated ${estimate.toFixed(0)} s > ${BUDGET_S} s budget (O(n²) from ${seconds} s at n = ${atN})` });
     return;
   }
-  const r = await runPeerChild('druid-tsne', key === 'blobs' ? 'blobs' : 'demo', ds.n);
+  const r = await runPeerChild(peer, key === 'blobs' ? 'blobs' : 'demo', ds.n);
   if ('skipped' in r) {
     recordRow({ ...base, seconds: null, peak_mib: null, trustworthiness: null, note: `skipped: ${r.skipped}` });
     return;
@@ -165,26 +176,6 @@ async function benchPca(ds: Dataset, key: string): Promise<void> {
     return flat;
   }, runs);
   recordRow({ suite: 'embed', method: 'PCA', impl: 'druid.js 0.9.0', dataset: key, n: ds.n, d: ds.d, seconds: druid.seconds, peak_mib: druid.peakMiB, trustworthiness: quality(ds, druid.result), runs });
-}
-
-/**
- * tsne-js 1.0.3 (exact, O(n²) per iteration, ndarray-based): measured here at 251 s for n = 500
- * (d = 50, 1,000 iterations, load average about 4, 2026-12-02), so it is run only where that
- * estimate, growing as n², fits the budget, and reported as skipped elsewhere.
- */
-async function benchTsneJs(ds: Dataset, key: string): Promise<void> {
-  const estimate = 251 * (ds.n / 500) ** 2 * (ITERATIONS / 1000);
-  const base = { suite: 'embed' as const, method: 't-SNE', impl: 'tsne-js 1.0.3', dataset: key, n: ds.n, d: ds.d, runs: 1 };
-  if (estimate > BUDGET_S) {
-    recordRow({ ...base, seconds: null, peak_mib: null, trustworthiness: null, note: `skipped: estimated ${estimate.toFixed(0)} s > ${BUDGET_S} s budget (O(n²) from 251 s at n = 500)` });
-    return;
-  }
-  const r = await runPeerChild('tsne-js', key === 'blobs' ? 'blobs' : 'demo', ds.n);
-  if ('skipped' in r) {
-    recordRow({ ...base, seconds: null, peak_mib: null, trustworthiness: null, note: `skipped: ${r.skipped}` });
-    return;
-  }
-  recordRow({ ...base, seconds: r.seconds, peak_mib: r.peakMiB, trustworthiness: quality(ds, Float64Array.from(r.map)) });
 }
 
 /** A peer's t-SNE of the dataset's rows, flattened (n × 2). */
@@ -250,16 +241,16 @@ export async function run(quick: boolean): Promise<void> {
     const demo = demoDataset(quick ? 2_000 : Infinity); // --quick: the first 2,000 demo windows
     await benchPca(demo, 'demo windows');
     await benchOurTsne(demo, 'demo windows');
-    await benchDruidTsne(demo, 'demo windows');
-    await benchTsneJs(demo, 'demo windows');
+    await benchExactTsne('druid-tsne', demo, 'demo windows');
+    await benchExactTsne('tsne-js', demo, 'demo windows');
     await benchUmap(demo, 'demo windows');
   }
   for (const n of sizes) {
     const ds = blobsDataset(n);
     if (!tsneOnly) await benchPca(ds, 'blobs');
     await benchOurTsne(ds, 'blobs');
-    await benchDruidTsne(ds, 'blobs');
-    await benchTsneJs(ds, 'blobs');
+    await benchExactTsne('druid-tsne', ds, 'blobs');
+    await benchExactTsne('tsne-js', ds, 'blobs');
     if (!tsneOnly) await benchUmap(ds, 'blobs'); // UMAP rows: ours, umap-js, druid.js (bench/embed-umap.ts)
   }
   print();

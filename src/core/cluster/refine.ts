@@ -1,19 +1,11 @@
 import type { JobContext } from '../job';
+import type { KMeansResult } from './kmeans';
 import { inertia, runLloyd } from './lloyd';
 import { proposeMove } from './split-merge';
 import { transferPasses } from './transfers';
 
-export interface Refined {
-  labels: Int32Array;
-  /** Means of the final clusters, row-major k × d. */
-  centres: Float64Array;
-  inertia: number;
-  /** Lloyd iterations spent here (polish and accepted moves). */
-  iterations: number;
-  /** Whether the last Lloyd run stopped because no window changed cluster (not at the cap). */
-  converged: boolean;
-  /** Split–merge moves accepted. */
-  refinements: number;
+/** The refined run: a k-means result (centres = means of the final clusters) and its transfers. */
+export interface Refined extends KMeansResult {
   /** Single-window transfers made at the end. */
   transfers: number;
 }
