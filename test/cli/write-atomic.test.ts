@@ -1,0 +1,28 @@
+import { mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { writeFileAtomic } from '../../src/cli/write-atomic';
+
+describe('writeFileAtomic (CLI outputs)', () => {
+  it('writes text and bytes, replaces an existing file whole and leaves no temporary file', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'gleaner-atomic-'));
+    const path = join(dir, 'summary.json');
+    writeFileSync(path, 'old contents that are longer than the new ones');
+    writeFileAtomic(path, '{"a":1}\n');
+    expect(readFileSync(path, 'utf8')).toBe('{"a":1}\n');
+    writeFileAtomic(path, Uint8Array.of(0xe2, 0x80, 0x94));
+    expect(readFileSync(path, 'utf8')).toBe('\u2014');
+    // A temporary file left by an interrupted run of the same process id is replaced, not an error.
+    writeFileSync(join(dir, `.summary.json.${process.pid}.tmp`), 'half');
+    writeFileAtomic(path, 'new');
+    expect(readFileSync(path, 'utf8')).toBe('new');
+    expect(readdirSync(dir)).toEqual(['summary.json']);
+  });
+
+  it('fails with the reason when the folder does not exist, and writes nothing', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'gleaner-atomic-'));
+    expect(() => writeFileAtomic(join(dir, 'missing', 'out.csv'), 'x')).toThrow(/ENOENT/);
+    expect(readdirSync(dir)).toEqual([]);
+  });
+});
