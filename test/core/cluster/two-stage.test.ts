@@ -35,6 +35,35 @@ describe('twoStageHierarchy(data, n, d, options)', () => {
     expect(adjustedRandIndex(labels, truth)).toBeCloseTo(1, 12);
   });
 
+  it('fits micro-clusters on a sample when there are many windows each: centroids are the means of their windows', async () => {
+    // 3,000 windows, 60 micro-clusters: more than 16 windows each, so Lloyd runs on a seeded sample.
+    const { data } = blobs(3000, 6, 4, 5);
+    const a = await twoStageHierarchy(data, 3000, 6, { linkage: 'ward', microClusters: 60, seed: 1 });
+    const b = await twoStageHierarchy(data, 3000, 6, { linkage: 'ward', microClusters: 60, seed: 1 });
+    expect(b.assignment).toEqual(a.assignment);
+    const d = 6, leaves = a.tree.n;
+    const sums = new Float64Array(leaves * d);
+    const counts = new Int32Array(leaves);
+    a.assignment.forEach((leaf, i) => {
+      counts[leaf]++;
+      for (let j = 0; j < d; j++) sums[leaf * d + j] += data[i * d + j];
+    });
+    for (let t = 0; t < leaves * d; t++) expect(a.centroids[t]).toBeCloseTo(sums[t] / counts[Math.floor(t / d)], 10);
+    // Each window sits with its nearest centroid (the assignment pass).
+    for (let i = 0; i < 3000; i += 97) {
+      let best = Infinity, bestLeaf = -1;
+      for (let c = 0; c < leaves; c++) {
+        let s = 0;
+        for (let j = 0; j < d; j++) s += (data[i * d + j] - a.centroids[c * d + j]) ** 2;
+        if (s < best) { best = s; bestLeaf = c; }
+      }
+      const own = Array.from({ length: d }, (_, j) => (data[i * d + j] - a.centroids[a.assignment[i] * d + j]) ** 2).reduce((x, y) => x + y, 0);
+      // Centroids moved to their windows' means after the assignment, so allow the usual k-means slack.
+      expect(own).toBeLessThanOrEqual(best * 1.5 + 1e-9);
+      expect(bestLeaf).toBeGreaterThanOrEqual(0);
+    }
+  });
+
   it('equals exact Ward when every micro-cluster is one window', async () => {
     const { data } = blobs(40, 3, 3, 9);
     const r = await twoStageHierarchy(data, 40, 3, { linkage: 'ward', microClusters: 40, seed: 2 });
