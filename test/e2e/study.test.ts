@@ -101,6 +101,12 @@ describe('study file, end to end', () => {
     await page.getByLabel('Select cluster 5').check();
     await page.getByRole('button', { name: 'Merge 2 ticked' }).click();
     await page.screenshot({ path: join(OUTPUT, 'study-curated.png') });
+    // The Fingerprints heat map shows one row per cluster still holding windows: the merged-away one is gone.
+    const header = readFileSync(DEMO, 'utf8').split(/\r?\n/)[0].split(',');
+    const features = header.length - header.indexOf('activity_label') - 1; // every column after the label
+    await page.getByRole('tab', { name: 'Fingerprints' }).click();
+    await page.waitForFunction((want) => (window as unknown as { __gleaner: { views: { fingerprintCells: number } } }).__gleaner.views.fingerprintCells === want, (K - 1) * features, { timeout: 60_000, polling: 100 });
+    await page.getByRole('tab', { name: 'Fingerprints' }).click();
     await page.getByLabel('Colour by').selectOption('subject');
 
     saved = await snapshot(page, K, DEMO_WINDOWS);

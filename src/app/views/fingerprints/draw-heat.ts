@@ -4,6 +4,8 @@ import { CLAMP, zColour, type HeatLayout } from './heat-map';
 export interface HeatScene {
   k: number;
   d: number;
+  /** The clusters shown, one per row, top to bottom (clusters emptied by curation are left out). */
+  rows: readonly number[];
   /** k × d standardized means, row-major, in table feature order. */
   means: Float64Array;
   /** Feature indices, most separating first. */
@@ -22,8 +24,9 @@ export function drawHeat(ctx: CanvasRenderingContext2D, l: HeatLayout, s: HeatSc
   ctx.clearRect(0, 0, l.width, l.height);
   ctx.font = '12px system-ui, sans-serif';
   let cells = 0;
-  for (let c = 0; c < s.k; c++) {
-    const y = l.top + c * l.cellH;
+  for (let r = 0; r < s.rows.length; r++) {
+    const c = s.rows[r];
+    const y = l.top + r * l.cellH;
     for (let p = 0; p < s.d; p++) {
       const rgb = zColour(s.means[c * s.d + s.order[p]]);
       ctx.fillStyle = rgb ? `rgb(${rgb[0]},${rgb[1]},${rgb[2]})` : MISSING_COLOUR;
@@ -42,10 +45,11 @@ export function drawHeat(ctx: CanvasRenderingContext2D, l: HeatLayout, s: HeatSc
       ctx.fillRect(4, y + 4, Math.max(2, 14 * share), l.cellH - 9);
     }
   }
-  if (s.focused >= 0 && s.focused < s.k) {
+  const focusedRow = s.rows.indexOf(s.focused);
+  if (focusedRow >= 0) {
     ctx.strokeStyle = '#000';
     ctx.lineWidth = 2;
-    ctx.strokeRect(l.left - 1, l.top + s.focused * l.cellH - 1, s.d * l.cellW + 1, l.cellH + 1);
+    ctx.strokeRect(l.left - 1, l.top + focusedRow * l.cellH - 1, s.d * l.cellW + 1, l.cellH + 1);
   }
   ctx.font = '11px system-ui, sans-serif';
   ctx.textAlign = 'left';
@@ -57,7 +61,7 @@ export function drawHeat(ctx: CanvasRenderingContext2D, l: HeatLayout, s: HeatSc
     ctx.fillText(s.featureNames[s.order[p]], 0, 0, l.top * 1.1);
     ctx.restore();
   }
-  drawScale(ctx, l.left, l.top + s.k * l.cellH + 8);
+  drawScale(ctx, l.left, l.top + s.rows.length * l.cellH + 8);
   return cells;
 }
 
