@@ -86,6 +86,11 @@ describe('Mix, Fingerprints, Timeline and Runs views on the demo study', () => {
 
     // Runs: re-run with per-subject scaling; the comparison shows the ARI; the flag is gone.
     await page.getByRole('tab', { name: 'Runs' }).click();
+    // The status bar's Cancel stops the re-run too, and the shown run stays.
+    await page.getByRole('button', { name: 'Re-run with per-subject scaling' }).click();
+    await page.getByRole('button', { name: 'Cancel' }).click();
+    await expect.poll(async () => (await page.getByTestId('status').textContent()) ?? '', { timeout: 15_000 }).toMatch(/Re-run cancelled/);
+    expect((await hookState(page)).runCount).toBe(1);
     await page.getByRole('button', { name: 'Re-run with per-subject scaling' }).click();
     await waitForRuns(page, 2);
     await page.waitForFunction(() => {

@@ -172,6 +172,16 @@ export class AppState {
     this.current?.cancel();
   }
 
+  /** Makes `job` the one the status bar's Cancel stops, until it ends (jobs started by views). */
+  track<T>(job: RunningJob<T>): RunningJob<T> {
+    this.current = job;
+    const release = () => {
+      if (this.current === job) this.current = null;
+    };
+    job.result.then(release, release);
+    return job;
+  }
+
   async exportLabels(): Promise<void> {
     const { table, source, run } = this.study;
     if (!table || !source || !run) return;

@@ -158,9 +158,9 @@ export class Runs {
     const params = { ...base.run.params, recipe: subjectScaledRecipe(base.run.params.recipe) };
     app.status.start(`Re-running ${base.name} with per-subject scaling on ${matrix.n} windows…`);
     try {
-      const job = this.client.run<AnalysisResult>('analyze', { matrix, params }, {
+      const job = app.track(this.client.run<AnalysisResult>('analyze', { matrix, params }, {
         onProgress: (p) => app.status.progress(p.stage, p.fraction),
-      });
+      }));
       const result = await job.result;
       app.study.setRun({ result, params, roles, featureNames: matrix.featureNames });
       this.compareWith = base.id;
