@@ -151,7 +151,9 @@ async function benchExactTsne(peer: keyof typeof EXACT_PEERS, ds: Dataset, key: 
   const { impl, seconds, atN } = EXACT_PEERS[peer];
   const estimate = seconds * (ds.n / atN) ** 2 * (ITERATIONS / 1000);
   const base = { suite: 'embed' as const, method: 't-SNE', impl, dataset: key, n: ds.n, d: ds.d, runs: 1 };
-  if (estimate > BUDGET_S) {
+  // GLEANER_BENCH_FORCE=druid-tsne,tsne-js runs those peers whatever the estimate (still killed at the budget).
+  const forced = (process.env.GLEANER_BENCH_FORCE ?? '').split(',').includes(peer);
+  if (estimate > BUDGET_S && !forced) {
     recordRow({ ...base, seconds: null, peak_mib: null, trustworthiness: null, note: `skipped: estimated ${estimate.toFixed(0)} s > ${BUDGET_S} s budget (O(n²) from ${seconds} s at n = ${atN})` });
     return;
   }
