@@ -74,14 +74,25 @@ export async function benchUmap(ds: Dataset, key: string): Promise<void> {
       recordRow({ ...row, seconds: null, peak_mib: null, trustworthiness: null, note: `skipped: N × N memory above ${DRUID_MAX_N} windows (6 GB at 10k, out of memory at 20k in PEERS.md)` });
       continue;
     }
-    const r = await runUmapPeer(peer, key === 'blobs' ? 'blobs' : 'demo', ds.n);
+    const graphOnly = peer === 'umap-js' && process.env.GLEANER_BENCH_UMAPJS === 'graph';
+    const r = graphOnly ? { skipped: 'not run (GLEANER_BENCH_UMAPJS=graph)' } : await runUmapPeer(peer, key === 'blobs' ? 'blobs' : 'demo', ds.n);
     if ('skipped' in r) {
       recordRow({ ...row, seconds: null, peak_mib: null, trustworthiness: null, note: `skipped: ${r.skipped}` });
+      // Where umap-js does not finish, its neighbour graph alone still gives the recall on the same data.
+      if (peer === 'umap-js') await benchUmapJsGraph(exact, ds, key);
       continue;
     }
     const note = r.lists ? `recall@15 ${recall15(exact, (s) => r.lists![s], false).toFixed(3)}` : 'exact KD-tree neighbours';
     recordRow({ ...row, seconds: r.seconds, peak_mib: r.peakMiB, trustworthiness: quality(ds, Float64Array.from(r.map)), note });
   }
+}
+
+/** umap-js's neighbour graph alone (initializeFit: NN-descent and the fuzzy set): its time and recall. */
+async function benchUmapJsGraph(exact: SampleKnn, ds: Dataset, key: string): Promise<void> {
+  const row = { suite: 'embed' as const, method: 'UMAP neighbour graph', dataset: key, n: ds.n, d: ds.d, impl: 'umap-js 1.4.0', runs: 1, trustworthiness: null };
+  const r = await runUmapPeer('umap-js-graph', key === 'blobs' ? 'blobs' : 'demo', ds.n);
+  if ('skipped' in r) recordRow({ ...row, seconds: null, peak_mib: null, note: `skipped: ${r.skipped}` });
+  else recordRow({ ...row, seconds: r.seconds, peak_mib: r.peakMiB, note: `recall@15 ${recall15(exact, (s) => r.lists![s], false).toFixed(3)} (graph only)` });
 }
 
 function runUmapPeer(peer: string, dataset: string, n: number): Promise<PeerResult | { skipped: string }> {
@@ -104,6 +115,15 @@ async function peerChild(peer: string, dataset: string, n: number): Promise<stri
     const rows = sampleIndices(ds.n, RECALL_SAMPLE, seededRandom(RECALL_SEED));
     const lists = Array.from(rows, (i) => m.result.knn[i]);
     return `${JSON.stringify({ seconds: m.seconds, peakMiB: m.peakMiB, map: m.result.map, lists })}\n`;
+  } else if (peer === 'umap-js-graph') {
+    const x = rowsOf();
+    const m = await timeInProcess(async () => {
+      const u = new UmapJs({ nNeighbors: NEIGHBORS, minDist: MIN_DIST, nEpochs: epochs, random: seededRandom(1) });
+      u.initializeFit(x);
+      return (u as unknown as { knnIndices: number[][] }).knnIndices;
+    }, 1);
+    const rows = sampleIndices(ds.n, RECALL_SAMPLE, seededRandom(RECALL_SEED));
+    return `${JSON.stringify({ seconds: m.seconds, peakMiB: m.peakMiB, map: [], lists: Array.from(rows, (i) => m.result[i]) })}\n`;
   } else if (peer === 'druid-umap') {
     const x = Array.from({ length: ds.n }, (_, i) => ds.data.subarray(i * ds.d, i * ds.d + ds.d));
     const m = await timeInProcess(async () => {

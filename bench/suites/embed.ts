@@ -225,14 +225,21 @@ function print(): void {
 
 export async function run(quick: boolean): Promise<void> {
   // --sizes=20000,100000 runs only those blob sizes; --tsne-only leaves out UMAP, PCA and the demo
-  // windows; --pca-only runs the PCA rows alone.
+  // windows; --pca-only and --umap-only run those rows alone (GLEANER_BENCH_UMAPJS=graph: umap-js's
+  // neighbour graph only).
   const sizesFlag = process.argv.find((a) => a.startsWith('--sizes='));
   const tsneOnly = process.argv.includes('--tsne-only');
   const pcaOnly = process.argv.includes('--pca-only');
+  const umapOnly = process.argv.includes('--umap-only');
   const sizes = sizesFlag ? sizesFlag.slice('--sizes='.length).split(',').map(Number)
     : quick ? [2_000, 10_000] : [2_000, 10_000, 20_000, 50_000, 100_000];
   console.log(`t-SNE: Gaussian blobs d = ${D}, ${CENTRES} centres, seed ${SEED}; demo windows z-scored; Node ${process.version}${quick ? ' (quick)' : ''}`);
   console.log(`ours: median of 3 runs at n <= ${SMALL_N}, 1 run above; peers: 1 run in a child process, ${BUDGET_S} s budget`);
+  if (umapOnly) {
+    for (const n of sizes) await benchUmap(blobsDataset(n), 'blobs');
+    print();
+    return;
+  }
   if (pcaOnly) {
     await benchPca(demoDataset(quick ? 2_000 : Infinity), 'demo windows');
     for (const n of sizes) await benchPca(blobsDataset(n), 'blobs');
