@@ -17,8 +17,15 @@ export function runChild<T>(script: string, args: string[], budgetS: number, nod
       clearTimeout(timer);
       if (signal === 'SIGKILL') return resolve({ skipped: `killed at the ${budgetS} s budget` });
       const line = out.trim().split('\n').pop() ?? '';
-      if (code !== 0 || !line.startsWith('{')) return resolve({ skipped: `failed (exit ${code}): ${err.trim().split('\n').slice(-1)[0] ?? ''}` });
+      if (code !== 0 || !line.startsWith('{')) return resolve({ skipped: `failed (exit ${code}): ${reason(err)}` });
       resolve(JSON.parse(line) as T);
     });
   });
+}
+
+/** The telling line of a dead child's stderr: its last error or abort message, else its last line. */
+function reason(stderr: string): string {
+  const lines = stderr.split('\n').map((l) => l.trim()).filter((l) => l.length > 0 && !/^at /.test(l) && !/^Node\.js v/.test(l));
+  const telling = lines.filter((l) => /error|abort|memory/i.test(l));
+  return (telling.at(-1) ?? lines.at(-1) ?? '').slice(0, 200);
 }
