@@ -1,4 +1,3 @@
-import { createHash, type Hash } from 'node:crypto';
 import { closeSync, createReadStream, fstatSync, openSync, readdirSync, readSync, statSync } from 'node:fs';
 import { basename, join, relative, sep } from 'node:path';
 import { CancelledError, InputError } from '../core/errors';
@@ -6,8 +5,8 @@ import type { JobContext } from '../core/job';
 import { concatTables, type TablePart } from '../core/table/concat';
 import { detectFormat } from '../core/table/format';
 import { createTableReader, readsByOffset, readTableSource } from '../core/table/reader';
-import { hashingSource } from '../core/hash/hashing-source';
 import { openFileSource } from './file-source';
+import { hashFilesInBackground, type RunningHash } from './hash-files';
 import type { ReadOptions } from '../core/table/reader.types';
 import type { Table } from '../core/table/table';
 
@@ -37,31 +36,45 @@ export interface ReadInputDeps {
  * chunks into the core reader: no file is ever held as one string.
  */
 export async function readInput(path: string, deps: ReadInputDeps): Promise<InputTable> {
-  const hash = createHash('sha256');
   // A missing path fails on open (below), so the message says "cannot open".
   if (statSync(path, { throwIfNoEntry: false })?.isDirectory()) {
     const files = listParts(path);
     if (files.length === 0) {
       throw new InputError({ file: basename(path), expected: 'data files (parts such as part-0.parquet) in the folder or its key=value subfolders', found: 'none' });
     }
+    const rels = files.map((f) => relative(path, f).split(sep).join('/'));
+    const hashing = hashFilesInBackground(files.map((f, t) => ({ label: `${rels[t]}\n`, path: f })));
     const total = files.reduce((s, f) => s + statSync(f).size, 0);
     let done = 0;
     const parts: TablePart[] = [];
-    for (const file of files) {
-      const rel = relative(path, file);
-      hash.update(`${rel.split(sep).join('/')}\n`);
-      const table = await readFile(file, rel.split(sep).join('/'), hash, deps, (f) => deps.progress('reading', (done + f) / total));
-      done += statSync(file).size;
-      parts.push({ table, partition: partitionOf(rel) });
-    }
     const fileName = basename(path);
-    return { table: concatTables(parts, fileName), fileName, sha256: hash.digest('hex'), parts: files.length };
+    const table = await whileHashing(hashing, async () => {
+      for (const [t, file] of files.entries()) {
+        const part = await readFile(file, rels[t], deps, (f) => deps.progress('reading', (done + f) / total));
+        done += statSync(file).size;
+        parts.push({ table: part, partition: partitionOf(rels[t]) });
+      }
+      return concatTables(parts, fileName);
+    });
+    return { table, fileName, sha256: await hashing.digest, parts: files.length };
   }
-  const table = await readFile(path, basename(path), hash, deps, (f) => deps.progress('reading', f));
-  return { table, fileName: basename(path), sha256: hash.digest('hex'), parts: 1 };
+  const hashing = hashFilesInBackground([{ path }]);
+  const table = await whileHashing(hashing, () => readFile(path, basename(path), deps, (f) => deps.progress('reading', f)));
+  return { table, fileName: basename(path), sha256: await hashing.digest, parts: 1 };
 }
 
-async function readFile(path: string, fileName: string, hash: Hash, deps: ReadInputDeps, progress: (f: number) => void): Promise<Table> {
+/** Runs `read`; if it fails (bad input, cancel), the hashing thread is stopped and its outcome ignored. */
+async function whileHashing<T>(hashing: RunningHash, read: () => Promise<T>): Promise<T> {
+  try {
+    return await read();
+  } catch (err) {
+    hashing.digest.catch(() => undefined);
+    hashing.stop();
+    throw err;
+  }
+}
+
+async function readFile(path: string, fileName: string, deps: ReadInputDeps, progress: (f: number) => void): Promise<Table> {
   const fd = openSync(path, 'r');
   const size = fstatSync(fd).size;
   const head = new Uint8Array(8);
@@ -72,14 +85,11 @@ async function readFile(path: string, fileName: string, hash: Hash, deps: ReadIn
     checkpoint: () => (deps.cancelled() ? Promise.reject(new CancelledError()) : new Promise((r) => setImmediate(r))),
   };
   if (readsByOffset(format)) {
-    // Parquet: read by offset, one row group in memory at a time, hashed on the way (one pass).
+    // Parquet: read by offset, one row group in memory at a time.
     closeSync(fd);
     const source = await openFileSource(path);
     try {
-      const hashing = hashingSource(source, hash);
-      const table = await readTableSource(format, fileName, hashing, { totalBytes: size, ...deps.options }, ctx);
-      await hashing.finish();
-      return table;
+      return await readTableSource(format, fileName, source, { totalBytes: size, ...deps.options }, ctx);
     } finally {
       await source.close();
     }
@@ -89,9 +99,7 @@ async function readFile(path: string, fileName: string, hash: Hash, deps: ReadIn
   try {
     for await (const chunk of stream as AsyncIterable<Buffer>) {
       if (deps.cancelled()) throw new CancelledError();
-      const bytes = new Uint8Array(chunk.buffer, chunk.byteOffset, chunk.byteLength);
-      hash.update(bytes);
-      reader.push(bytes);
+      reader.push(new Uint8Array(chunk.buffer, chunk.byteOffset, chunk.byteLength));
       progress(size > 0 ? reader.bytesConsumed / size : 1);
     }
   } finally {

@@ -39,7 +39,14 @@ describe('readInput(path)', () => {
       expect(subjects[r]).toBe(`S0${(i % 3) + 1}`);
       expect(Number(acc[r])).toBe(Number((i / 4).toFixed(2)));
     });
-    expect(got.sha256).toMatch(/^[0-9a-f]{64}$/);
+    // The folder's hash: SHA-256 (node:crypto) over each part's relative path + newline, then its bytes, in path order.
+    const { createHash } = await import('node:crypto');
+    const { readdirSync, readFileSync } = await import('node:fs');
+    const rels = (readdirSync(join(dir, 'parts'), { recursive: true }) as string[]).filter((f) => f.endsWith('.parquet')).sort();
+    expect(rels).toHaveLength(3);
+    const want = createHash('sha256');
+    for (const rel of rels) want.update(`${rel}\n`).update(readFileSync(join(dir, 'parts', rel)));
+    expect(got.sha256).toBe(want.digest('hex'));
   });
 
   it('streams a CSV file and hashes it (SHA-256 as node:crypto computes it over the whole file)', async () => {
