@@ -5,8 +5,11 @@ import type { Repulsion } from './repulsion.types';
 export interface GradientBuffers {
   attract: Float64Array;
   repel: Float64Array;
-  /** P's pairs above the diagonal (upperPairs), kept for the P they were taken from. */
-  pairs?: { of: Affinities; upper: Affinities };
+  /**
+   * P's pairs above the diagonal (upperPairs), kept for the P they were taken from, and Σ p log p
+   * (constant while P is), summed at the first cost.
+   */
+  pairs?: { of: Affinities; upper: Affinities; plogp?: number };
 }
 
 export function gradientBuffers(n: number): GradientBuffers {
@@ -24,13 +27,26 @@ export function gradient(
   y: Float64Array, p: Affinities, repulsion: Repulsion, exaggeration: number,
   grad: Float64Array, buf: GradientBuffers, wantCost: boolean,
 ): { z: number; cost: number | undefined } {
+  const z = repulsion.compute(y, p.n, buf.repel);
+  return gradientAfterRepulsion(y, p, z, exaggeration, grad, buf, wantCost);
+}
+
+/**
+ * The rest of `gradient` once the repulsion has filled `buf.repel` and returned Z (so that a driver
+ * can pause between the two halves of a step): attraction, the gradient and, when asked, the cost.
+ */
+export function gradientAfterRepulsion(
+  y: Float64Array, p: Affinities, z: number, exaggeration: number,
+  grad: Float64Array, buf: GradientBuffers, wantCost: boolean,
+): { z: number; cost: number | undefined } {
   const n = p.n;
-  const z = repulsion.compute(y, n, buf.repel);
   const { attract } = buf;
   // P is symmetric: each pair is visited once (j > i) and its force applied to both windows.
   if (buf.pairs?.of !== p) buf.pairs = { of: p, upper: upperPairs(p) };
   const { rowStart, columns, values } = buf.pairs.upper;
   attract.fill(0);
+  const pairs = buf.pairs;
+  const needPlogp = wantCost && pairs.plogp === undefined;
   let plogp = 0;
   let plogw = 0;
   for (let i = 0; i < n; i++) {
@@ -44,16 +60,19 @@ export function gradient(
       const gx = f * dx, gy = f * dy;
       fx += gx; fy += gy;
       attract[2 * j] -= gx; attract[2 * j + 1] -= gy;
-      if (wantCost && values[e] > 0) { plogp += values[e] * Math.log(values[e]); plogw += values[e] * Math.log(w); }
+      if (wantCost && values[e] > 0) {
+        if (needPlogp) plogp += values[e] * Math.log(values[e]);
+        plogw += values[e] * Math.log(w);
+      }
     }
     attract[2 * i] += fx; attract[2 * i + 1] += fy;
   }
   // Each pair stands for p_ij and p_ji.
-  plogp *= 2;
+  if (needPlogp) pairs.plogp = 2 * plogp;
   plogw *= 2;
   const { repel } = buf;
   const invZ = 1 / z;
   for (let t = 0; t < 2 * n; t++) grad[t] = 4 * (exaggeration * attract[t] - repel[t] * invZ);
   // KL = Σ p log p − Σ p log w + log Z, as Σ p = 1.
-  return { z, cost: wantCost ? plogp - plogw + Math.log(z) : undefined };
+  return { z, cost: wantCost ? (pairs.plogp as number) - plogw + Math.log(z) : undefined };
 }

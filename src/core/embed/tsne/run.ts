@@ -21,7 +21,8 @@ export const FRAME_EVERY = 10;
 
 /**
  * Runs t-SNE to the end under a job context: awaits ctx.checkpoint() between slices of the
- * preparation and between iterations (so a cancel stops it within one iteration), reports
+ * preparation, between iterations and between the two halves of each (so a cancel stops it within
+ * half an iteration), reports
  * ctx.progress('t-SNE', fraction), and hands every 10th frame (and the last) to onFrame.
  * Neighbours: exact brute force (⌊3 · perplexity⌋ + 1 per window), or NN-descent on rows in a
  * space-local order (seeded by options.seed; ⌊1.5 · perplexity⌋ + 1 per window) per options.neighbors.
@@ -50,7 +51,15 @@ export async function runTsne(
     await ctx.checkpoint();
   }
   const total = o.iterations;
-  while (tsne.step()) {
+  for (;;) {
+    // Each step in two parts with a checkpoint between (repulsion, then attraction and update).
+    const parts = tsne.stepParts();
+    let r = parts.next();
+    while (!r.done) {
+      await ctx.checkpoint();
+      r = parts.next();
+    }
+    if (!r.value) break;
     ctx.progress('t-SNE', PREPARE_SHARE + (1 - PREPARE_SHARE) * (tsne.iteration / total));
     if (onFrame && (tsne.iteration % FRAME_EVERY === 0 || tsne.finished)) onFrame(tsne.coords(), tsne.iteration, tsne.cost);
     await ctx.checkpoint();

@@ -1,5 +1,5 @@
 import { upperPairs, type Affinities } from './affinities';
-import { gradient, gradientBuffers, type GradientBuffers } from './gradient';
+import { gradientAfterRepulsion, gradientBuffers, type GradientBuffers } from './gradient';
 import { BarnesHutRepulsion } from './barnes-hut';
 import { FftRepulsion } from './fft-repulsion';
 import { COST_EVERY, learningRateOf, repulsionOf, resolveTsneOptions, type TsneOptions } from './options';
@@ -68,6 +68,19 @@ export class Tsne {
 
   /** One iteration; returns false, doing nothing, once all iterations are done. */
   step(): boolean {
+    const parts = this.stepParts();
+    for (;;) {
+      const r = parts.next();
+      if (r.done) return r.value;
+    }
+  }
+
+  /**
+   * One iteration in two parts, pausing (a yield) between the repulsion and the rest, so a driver
+   * can checkpoint mid-step; returns false, doing nothing, once all iterations are done. The same
+   * arithmetic as `step`.
+   */
+  *stepParts(): Generator<void, boolean> {
     const p = this.affinities;
     if (!p || !this.repel || !this.buf) throw new Error('t-SNE: call init() before step()');
     const o = this.options;
@@ -80,7 +93,9 @@ export class Tsne {
     }
     const last = this.iteration + 1 === o.iterations;
     const wantCost = (this.iteration + 1) % COST_EVERY === 0 || last;
-    const { cost } = gradient(this.y, p, this.repel, early ? o.earlyExaggeration : 1, this.grad, this.buf, wantCost);
+    const z = this.repel.compute(this.y, this.n, this.buf.repel);
+    yield;
+    const { cost } = gradientAfterRepulsion(this.y, p, z, early ? o.earlyExaggeration : 1, this.grad, this.buf, wantCost);
     if (cost !== undefined) this.cost = cost;
     const momentum = early ? MOMENTUM_EARLY : MOMENTUM_LATE;
     const { y, update, gains, grad } = this;
