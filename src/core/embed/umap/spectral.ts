@@ -45,6 +45,7 @@ export async function spectralLayout(
     [q, next] = [next, q];
     orthonormalize(q, n, trivial);
     if (iter % CHECK_EVERY === 0 || iter === MAX_ITERATIONS) {
+      await ctx.checkpoint(); // the check costs about one more iteration
       const values = rayleighRitz(q, next, n, rowStart, cols, weights, invSqrtDeg);
       if (!values) return null;
       let change = 0;
