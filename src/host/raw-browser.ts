@@ -1,18 +1,6 @@
-import type { ByteSource } from '../core/raw/byte-source';
+import { blobSource } from '../core/raw/byte-source';
 import type { RawFolder } from './raw-folder';
 import { baseName } from './raw-folder';
-
-/** A ByteSource over a File (or Blob): each read is one File.slice. */
-export function fileByteSource(file: Blob): ByteSource {
-  return {
-    size: file.size,
-    async read(offset, length) {
-      const from = Math.max(0, offset);
-      const to = Math.min(file.size, offset + length);
-      return to <= from ? new Uint8Array(0) : new Uint8Array(await file.slice(from, to).arrayBuffer());
-    },
-  };
-}
 
 /** A raw folder over files the user picked (a directory's top-level files, keyed by base name). */
 export function filesRawFolder(label: string, files: Iterable<File>): RawFolder {
@@ -23,7 +11,7 @@ export function filesRawFolder(label: string, files: Iterable<File>): RawFolder 
     names: [...byName.keys()].sort(),
     open: (name) => {
       const f = byName.get(baseName(name));
-      return Promise.resolve(f ? fileByteSource(f) : null);
+      return Promise.resolve(f ? blobSource(f) : null);
     },
   };
 }

@@ -6,7 +6,7 @@ import { profileRun, type ProfileInput, type RunProfile } from '../core/profile/
 import { checkTable, type TableWarning } from '../core/table/checks';
 import { detectFormat, tableFormat } from '../core/table/format';
 import { createTableReader, readsByOffset, readTableSource } from '../core/table/reader';
-import { blobSource } from './blob-source';
+import { blobSource } from '../core/raw/byte-source';
 import { hashingSource } from '../core/hash/hashing-source';
 import type { ReadOptions, TableFormat } from '../core/table/reader.types';
 import { inferRoles } from '../core/table/roles';

@@ -20,6 +20,24 @@ export function bytesSource(bytes: Uint8Array): ByteSource {
   };
 }
 
+/** What blobSource needs of a Blob or browser File (structural, so the core names no DOM type). */
+export interface SliceableBlob {
+  readonly size: number;
+  slice(start: number, end: number): { arrayBuffer(): Promise<ArrayBuffer> };
+}
+
+/** A ByteSource over a Blob or File (browser, worker, Node): each read is one slice. */
+export function blobSource(blob: SliceableBlob): ByteSource {
+  return {
+    size: blob.size,
+    async read(offset, length) {
+      const from = Math.max(0, Math.min(blob.size, offset));
+      const to = Math.max(from, Math.min(blob.size, offset + length));
+      return to === from ? new Uint8Array(0) : new Uint8Array(await blob.slice(from, to).arrayBuffer());
+    },
+  };
+}
+
 /** A ByteSource that counts the bytes and calls passed through it (for tests and benchmarks). */
 export interface CountingSource extends ByteSource {
   readonly bytesRead: number;
