@@ -88,3 +88,51 @@ describe('CSV reader: delimiters, decimal comma and chunks', () => {
     expect((e as InputError).details).toMatchObject({ row: 3, column: 'b' });
   });
 });
+
+describe('CSV reader: numbers read in one pass with the record', () => {
+  // The reader parses plain cells ([+-]digits[.digits], up to 15 digits) while it splits the
+  // record; every value must equal Number(text) (ECMA-262 StringToNumber, correctly rounded),
+  // stored in Float64 or rounded once to Float32 (Math.fround), whatever the cell's shape.
+  const shapes = (random: () => number): string => {
+    const digits = (n: number) => Array.from({ length: n }, () => String(Math.floor(random() * 10))).join('');
+    const sign = ['', '-', '+'][Math.floor(random() * 3)];
+    const kind = Math.floor(random() * 6);
+    if (kind === 0) return `${sign}${digits(1 + Math.floor(random() * 18))}`;
+    if (kind === 1) {
+      const int = Math.floor(random() * 10);
+      return `${sign}${digits(int)}.${digits(Math.max(int === 0 ? 1 : 0, Math.floor(random() * 12)))}`;
+    }
+    if (kind === 2) return `${sign}${digits(1 + Math.floor(random() * 4))}.${digits(1 + Math.floor(random() * 4))}e${Math.floor(random() * 40) - 20}`;
+    if (kind === 3) return `${sign}0.${digits(14)}${digits(Math.floor(random() * 4))}`;
+    if (kind === 4) return ['', 'NA', ' 1.5', '2.5 ', '\t-3', '+0.0', '5.', '.5', '-0', '007', '-.5', '1.e2'][Math.floor(random() * 12)];
+    return `${digits(9)}${digits(Math.floor(random() * 8))}.${digits(Math.floor(random() * 3))}`;
+  };
+
+  it('equals Number(text) cell by cell, in Float64 and in Float32', async () => {
+    const { seededRandom } = await import('../../../src/core/random');
+    const random = seededRandom(99);
+    const rows = Array.from({ length: 3000 }, () => [shapes(random), shapes(random), shapes(random)]);
+    const text = `a,b,c\n${rows.map((r) => r.join(',')).join('\n')}\n`;
+    for (const precision of ['float64', 'float32'] as const) {
+      const t = parseCsv(enc(text), 'n.csv', { precision, delimiter: ',', decimal: '.' });
+      t.columns.forEach((c, j) => {
+        if (c.kind !== 'numeric') throw new Error(`${c.name} is ${c.kind}`);
+        rows.forEach((r, i) => {
+          const cell = r[j].trim();
+          const want = cell === '' || cell === 'NA' ? NaN : Number(cell);
+          const round = precision === 'float32' ? Math.fround(want) : want;
+          expect(Object.is(c.values[i], round) ? 'ok' : `row ${i + 2} "${r[j]}": ${c.values[i]} vs ${round}`).toBe('ok');
+        });
+      });
+    }
+  });
+
+  it('reads a decimal comma in the same pass (semicolon-separated)', () => {
+    const t = parseCsv(enc('a;b\n-0,25;3\n1,5e3;+7,125\n'), 'de.csv', { delimiter: ';', decimal: ',' });
+    expect(plain(t)).toEqual([['a', 'numeric', [-0.25, 1500]], ['b', 'numeric', [3, 7.125]]]);
+    // Told comma for both, the comma delimits: "1,5" is two cells, as the general path reads it.
+    const both = parseCsv(enc('a,b\n1,5\n2,25\n'), 'c.csv', { delimiter: ',', decimal: ',' });
+    expect(plain(both)).toEqual([['a', 'numeric', [1, 2]], ['b', 'numeric', [5, 25]]]);
+    expect(() => parseCsv(enc('a,b\n1,5,3\n'), 'c.csv', { delimiter: ',', decimal: ',' })).toThrow('c.csv, row 2: expected 2 fields, as in the header, found "3 fields (the delimiter is comma)"');
+  });
+});
