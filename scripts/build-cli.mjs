@@ -1,6 +1,8 @@
-// Builds the command-line runner into dist-cli/: main.js (the entry bin/gleaner.js loads) and
-// thread-entry.js (the job worker thread), with the core and its libraries bundled in and only
-// Node built-ins left external. `npm run build:cli`.
+// Builds the command-line runner into dist-cli/: main.js (the entry bin/gleaner.js loads),
+// thread-entry.js (the job worker thread) and csv-part-thread.js (the second reader of a large
+// CSV), with the core and its libraries bundled in and only Node built-ins left external. Shared
+// chunks sit beside the entries, so a thread entry resolves as ./<name>.js from any of them.
+// `npm run build:cli`.
 import { pathToFileURL } from 'node:url';
 import { build } from 'vite';
 
@@ -19,8 +21,8 @@ export async function buildCli() {
       minify: false,
       sourcemap: true,
       rolldownOptions: {
-        input: { main: 'src/cli/main.ts', 'thread-entry': 'src/cli/thread-entry.ts' },
-        output: { format: 'es', entryFileNames: '[name].js', chunkFileNames: 'chunks/[name]-[hash].js' },
+        input: { main: 'src/cli/main.ts', 'thread-entry': 'src/cli/thread-entry.ts', 'csv-part-thread': 'src/cli/csv-part-thread.ts' },
+        output: { format: 'es', entryFileNames: '[name].js', chunkFileNames: '[name]-[hash].js' },
       },
     },
   });
@@ -28,5 +30,5 @@ export async function buildCli() {
 
 if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) {
   await buildCli();
-  console.log(`cli: built ${outDir}/main.js and ${outDir}/thread-entry.js`);
+  console.log(`cli: built ${outDir}/main.js, ${outDir}/thread-entry.js and ${outDir}/csv-part-thread.js`);
 }

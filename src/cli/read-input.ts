@@ -5,6 +5,7 @@ import type { JobContext } from '../core/job';
 import { concatTables, type TablePart } from '../core/table/concat';
 import { detectFormat } from '../core/table/format';
 import { createTableReader, readsByOffset, readTableSource } from '../core/table/reader';
+import { readCsvInTwo } from './csv-in-two';
 import { openFileSource } from './file-source';
 import { hashFilesInBackground, type RunningHash } from './hash-files';
 import type { ReadOptions } from '../core/table/reader.types';
@@ -12,6 +13,8 @@ import type { Table } from '../core/table/table';
 
 /** Bytes read from disk at a time. */
 const CHUNK = 4 * 1024 * 1024;
+/** Delimited text files at least this large are parsed on two threads (csv-in-two.ts). */
+const TWO_THREADS_BYTES = 32 * 1024 * 1024;
 
 export interface InputTable {
   table: Table;
@@ -28,6 +31,12 @@ export interface ReadInputDeps {
   /** True once the user asked to stop; reading stops at the next chunk. */
   cancelled(): boolean;
   options?: ReadOptions;
+  /** Delimited text at least this large is parsed on two threads (default 32 MiB). */
+  twoThreadsBytes?: number;
+  /** Bytes read at a time (default 4 MiB). */
+  chunkBytes?: number;
+  /** Told, for a file read on two threads, whether the parts were joined or why not (csv-in-two.ts). */
+  twoThreadsOutcome?(how: string): void;
 }
 
 /**
@@ -94,8 +103,13 @@ async function readFile(path: string, fileName: string, deps: ReadInputDeps, pro
       await source.close();
     }
   }
+  const chunkBytes = deps.chunkBytes ?? CHUNK;
+  if (format === 'csv' && size >= (deps.twoThreadsBytes ?? TWO_THREADS_BYTES)) {
+    closeSync(fd);
+    return readCsvInTwo(path, fileName, size, { cancelled: deps.cancelled, progress, options: deps.options, chunkBytes, outcome: deps.twoThreadsOutcome });
+  }
   const reader = createTableReader(format, fileName, { totalBytes: size, ...deps.options });
-  const stream = createReadStream(path, { fd, highWaterMark: CHUNK });
+  const stream = createReadStream(path, { fd, highWaterMark: chunkBytes });
   try {
     for await (const chunk of stream as AsyncIterable<Buffer>) {
       if (deps.cancelled()) throw new CancelledError();
