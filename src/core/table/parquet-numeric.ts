@@ -4,7 +4,6 @@
  * Pages: v1 and v2; encodings PLAIN and (RLE_/PLAIN_)DICTIONARY. Anything else throws
  * `UnsupportedChunk`, and the caller reads that column with the general decoder instead.
  */
-import { snappyUncompress } from 'hyparquet';
 import { PAGE, readPageHeader } from './parquet-page-header';
 
 export type NumericType = 'FLOAT' | 'DOUBLE' | 'INT32' | 'INT64';
@@ -94,10 +93,7 @@ function inflate(c: NumericChunk, input: Uint8Array, size: number): Uint8Array {
   const custom = c.decompress[c.codec];
   let out: Uint8Array;
   if (custom) out = custom(input, size);
-  else if (c.codec === 'SNAPPY') {
-    out = new Uint8Array(size);
-    snappyUncompress(input, out);
-  } else throw new UnsupportedChunk(`codec ${c.codec}`);
+  else throw new UnsupportedChunk(`codec ${c.codec}`);
   if (out.length !== size) throw new Error(`page decompressed to ${out.length} bytes, its header says ${size}`);
   return out;
 }
