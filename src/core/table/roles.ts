@@ -49,11 +49,32 @@ function profile(column: Column, nRows: number): Profile {
   let runs = 0;
   let prev = NaN;
   let prevMissing = true;
-  const seen = new Set<number>();
+  if (column.kind === 'categorical') {
+    // Codes index the dictionary: distinct values are the codes in use.
+    const used = new Uint8Array(column.dictionary.length);
+    let distinct = 0;
+    for (let r = 0; r < nRows; r++) {
+      const v = column.codes[r];
+      if (v < 0) {
+        missing++;
+        prevMissing = true;
+        continue;
+      }
+      if (prevMissing || v !== prev) runs++;
+      prev = v;
+      prevMissing = false;
+      if (used[v] === 0) {
+        used[v] = 1;
+        distinct++;
+      }
+    }
+    return { missing, distinct, runs };
+  }
+  const seen = new NumberSet(nRows);
+  const values = column.values;
   for (let r = 0; r < nRows; r++) {
-    const v = column.kind === 'numeric' ? column.values[r] : column.codes[r];
-    const isMissing = column.kind === 'numeric' ? Number.isNaN(v) : v < 0;
-    if (isMissing) {
+    const v = values[r];
+    if (v !== v) {
       missing++;
       prevMissing = true;
       continue;
@@ -64,6 +85,43 @@ function profile(column: Column, nRows: number): Profile {
     seen.add(v);
   }
   return { missing, distinct: seen.size, runs };
+}
+
+/**
+ * A set of numbers (no NaN; -0 counts as 0, as in a JavaScript Set) in open addressing over the
+ * values' bits: a Set<number> took about half a second per million distinct values, which made
+ * role inference of a 1,000,000-window table take longer than reading it.
+ */
+class NumberSet {
+  size = 0;
+  private readonly keys: Float64Array;
+  private readonly used: Uint8Array;
+  private readonly mask: number;
+  private readonly bits = new Float64Array(1);
+  private readonly words = new Int32Array(this.bits.buffer);
+
+  constructor(most: number) {
+    let n = 16;
+    while (n < 2 * most) n *= 2;
+    this.keys = new Float64Array(n);
+    this.used = new Uint8Array(n);
+    this.mask = n - 1;
+  }
+
+  add(value: number): void {
+    const v = value + 0;
+    this.bits[0] = v;
+    let h = Math.imul(this.words[0] ^ Math.imul(this.words[1], 0x9e3779b1), 0x85ebca6b);
+    h ^= h >>> 15;
+    let i = h & this.mask;
+    while (this.used[i] === 1) {
+      if (this.keys[i] === v) return;
+      i = (i + 1) & this.mask;
+    }
+    this.used[i] = 1;
+    this.keys[i] = v;
+    this.size++;
+  }
 }
 
 function describe(column: Column, p: Profile, nRows: number): string {

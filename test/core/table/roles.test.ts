@@ -64,3 +64,24 @@ describe('inferRoles(table, overrides)', () => {
     expect(inferRoles(t).map((r) => r.role)).toEqual(['id', 'metadata', 'feature']);
   });
 });
+
+describe('inferRoles: distinct counts', () => {
+  it('counts distinct numbers as a JavaScript Set does (SameValueZero: -0 is 0, NaN is missing), Float32 and Float64', async () => {
+    const { seededRandom } = await import('../../../src/core/random');
+    const random = seededRandom(5);
+    for (const make of [(n: number) => new Float64Array(n), (n: number) => new Float32Array(n)]) {
+      for (const spread of [3, 50, 5000, 1e9]) {
+        const n = 40_000; // a hash table of 2^17 slots: -0 and 0 differ in bits the slot index uses
+        const values = make(n);
+        for (let i = 0; i < n; i++) {
+          const u = random();
+          values[i] = u < 0.02 ? NaN : u < 0.04 ? -0 : u < 0.06 ? 0 : Math.floor(random() * spread) / 7;
+        }
+        const want = new Set(Array.from(values).filter((v) => !Number.isNaN(v))).size;
+        const t = { fileName: 'n.csv', nRows: n, columns: [{ kind: 'numeric' as const, name: 'x', values }] };
+        const [role] = inferRoles(t);
+        expect(role.evidence).toMatch(new RegExp(`; ${want} distinct numeric value`));
+      }
+    }
+  });
+});
