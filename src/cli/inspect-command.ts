@@ -1,4 +1,4 @@
-import { readFileSync } from 'node:fs';
+import { statSync } from 'node:fs';
 import { basename } from 'node:path';
 import { InputError } from '../core/errors';
 import { isoFromEpoch } from '../core/raw/civil-time';
@@ -6,16 +6,19 @@ import { openRawCsv } from '../core/raw/csv/read';
 import { openEdf, type EdfFile } from '../core/raw/edf/read';
 import { looksLikeEdf } from '../core/raw/open';
 import type { ByteSource } from '../core/raw/byte-source';
-import { parseCsv } from '../core/table/csv';
+import { detectFormat } from '../core/table/format';
 import { inferRoles, roleFromName } from '../core/table/roles';
-import { cellText } from '../core/table/table';
+import type { Table } from '../core/table/table';
 import { openFileSource } from './file-source';
+import { readInput } from './read-input';
 
-export const INSPECT_USAGE = `Usage: gleaner inspect <file>
+export const INSPECT_USAGE = `Usage: gleaner inspect <file or folder>
 
 Prints a JSON summary of a windows table (columns and their roles, subjects, time range) or of a raw
 signal file: EDF/EDF+ (header fields; per signal label, units, ranges, sampling rate, number of
-samples; annotations) or a raw-signal CSV (time column, channels, rate, covered time).`;
+samples; annotations) or a raw-signal CSV (time column, channels, rate, covered time). A windows
+table is any input analyze reads: CSV/TSV with an id or subject column, Parquet, Arrow IPC, or a
+folder of Parquet parts.`;
 
 /** `gleaner inspect <file>`: returns the exit code (0 done, 1 bad input, 2 bad command line). */
 export async function runInspect(argv: readonly string[]): Promise<number> {
@@ -42,14 +45,16 @@ export async function runInspect(argv: readonly string[]): Promise<number> {
 
 /** The JSON summary of one file (see INSPECT_USAGE). */
 export async function inspectFile(path: string): Promise<object> {
-  const source = await openFileSource(path);
   const fileName = basename(path);
+  if (statSync(path, { throwIfNoEntry: false })?.isDirectory()) return windowsSummary(path, fileName);
+  const source = await openFileSource(path);
   try {
     const head = await source.read(0, 4096);
     if (looksLikeEdf(head)) return await edfSummary(await openEdf(source, fileName));
+    if (detectFormat(fileName, head) !== 'csv') return await windowsSummary(path, fileName);
     const header = new TextDecoder().decode(head).replace(/^\uFEFF/, '').split(/\r?\n/)[0];
     const names = header.split(/[,;\t]/).map((c) => c.trim());
-    if (names.some((n) => roleFromName(n) === 'subject' || roleFromName(n) === 'id')) return windowsSummary(path, fileName);
+    if (names.some((n) => roleFromName(n) === 'subject' || roleFromName(n) === 'id')) return await windowsSummary(path, fileName);
     return await rawCsvSummary(source, fileName);
   } finally {
     await source.close();
@@ -113,14 +118,13 @@ async function rawCsvSummary(source: ByteSource, fileName: string): Promise<obje
   };
 }
 
-function windowsSummary(path: string, fileName: string): object {
-  const table = parseCsv(new Uint8Array(readFileSync(path)), fileName);
+async function windowsSummary(path: string, fileName: string): Promise<object> {
+  const { table } = await readInput(path, { progress: () => {}, cancelled: () => false });
   const roles = inferRoles(table);
   const byRole = (role: string) => roles.findIndex((r) => r.role === role);
   const distinct = (role: string) => {
     const j = byRole(role);
-    if (j < 0) return null;
-    return new Set(Array.from({ length: table.nRows }, (_, r) => cellText(table.columns[j], r)).filter((v) => v !== '')).size;
+    return j < 0 ? null : distinctValues(table, j);
   };
   const range = (role: string) => {
     const c = table.columns[byRole(role)];
@@ -145,4 +149,17 @@ function windowsSummary(path: string, fileName: string): object {
 
 function pad(n: number): string {
   return String(n).padStart(2, '0');
+}
+
+/** Distinct non-empty values of column j. */
+function distinctValues(table: Table, j: number): number {
+  const c = table.columns[j];
+  if (c.kind === 'numeric') {
+    const seen = new Set<number>();
+    for (const v of c.values) if (v === v) seen.add(v);
+    return seen.size;
+  }
+  const used = new Uint8Array(c.dictionary.length);
+  for (const k of c.codes) if (k >= 0) used[k] = 1;
+  return c.dictionary.reduce((n, text, k) => n + (used[k] && text !== '' ? 1 : 0), 0);
 }

@@ -4,10 +4,11 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { writeEdf } from '../../src/core/raw/edf/write';
 import { HAVE_REFERENCE, REFERENCE_EDF } from '../core/raw/reference-edf';
+import { duckdb, sqlPath } from '../fixtures/duckdb';
 import { hasStackTrace, runCli } from './run-cli';
 
 let dir = '';
-beforeAll(() => {
+beforeAll(async () => {
   dir = mkdtempSync(join(tmpdir(), 'gleaner-inspect-'));
   writeFileSync(join(dir, 'small.edf'), writeEdf({
     patient: 'P01', recording: 'bench test', start: { year: 2026, month: 3, day: 2, hour: 9, minute: 0, second: 0 }, recordDuration: 1, plus: true,
@@ -17,7 +18,11 @@ beforeAll(() => {
   writeFileSync(join(dir, 'raw.csv'), 'time,acc\n0,1\n0.5,2\n1,3\n');
   writeFileSync(join(dir, 'windows.csv'), 'window_id,subject,start,end,f1,f2\nw1,S01,0,5,1,2\nw2,S02,5,10,3,4\n');
   writeFileSync(join(dir, 'broken.edf'), '0       ' + ' '.repeat(100));
-});
+  // The same windows as Parquet (DuckDB @duckdb/node-api, snappy), and as a folder partitioned by subject.
+  const csv = sqlPath(join(dir, 'windows.csv'));
+  await duckdb(`COPY (SELECT * FROM read_csv(${csv})) TO ${sqlPath(join(dir, 'windows.parquet'))} (FORMAT parquet)`);
+  await duckdb(`COPY (SELECT * FROM read_csv(${csv})) TO ${sqlPath(join(dir, 'parts'))} (FORMAT parquet, PARTITION_BY (subject))`);
+}, 60_000);
 afterAll(() => {
   if (dir) rmSync(dir, { recursive: true, force: true });
 });
@@ -46,6 +51,14 @@ describe('gleaner inspect <file>', () => {
     const win = JSON.parse(runCli(['inspect', join(dir, 'windows.csv')]).stdout);
     expect(win).toMatchObject({ kind: 'windows', rows: 2, subjects: 2, features: 2 });
     expect(win.columns.map((c: { role: string }) => c.role)).toEqual(['id', 'subject', 'start', 'end', 'feature', 'feature']);
+  });
+
+  it('summarizes a Parquet windows table and a folder of Parquet parts as analyze reads them', () => {
+    const pq = runCli(['inspect', join(dir, 'windows.parquet')]);
+    expect(pq.stderr).toBe('');
+    expect(JSON.parse(pq.stdout)).toMatchObject({ kind: 'windows', file: 'windows.parquet', rows: 2, subjects: 2, features: 2, start: [0, 5] });
+    const parts = JSON.parse(runCli(['inspect', join(dir, 'parts')]).stdout);
+    expect(parts).toMatchObject({ kind: 'windows', file: 'parts', rows: 2, subjects: 2, features: 2 });
   });
 
   it('fails with one line naming the file for a broken EDF, a missing file, and a bad command line', () => {
