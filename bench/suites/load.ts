@@ -1,11 +1,12 @@
 // Suite "load": reading a windows table of 1,000,000 windows × 50 features (--quick: 100,000) from
-// CSV and from Parquet, ours (streamed chunks into the core readers) beside DuckDB's read_csv and
-// read_parquet into an in-memory table, in one process. The seeded files are generated once into
-// $TMPDIR/gleaner-bench-load/ (CSV written here, Parquet converted from it by DuckDB, snappy).
+// CSV and from Parquet, ours (as the CLI reads: CSV of 32 MiB or more on two threads; also on one
+// thread, for comparison) beside DuckDB's read_csv and read_parquet into an in-memory table, in one
+// process. The seeded files are generated once into $TMPDIR/gleaner-bench-load/ (CSV written here,
+// Parquet converted from it by DuckDB, snappy). Appends JSON lines to bench-results/load.jsonl.
 import { DuckDBInstance } from '@duckdb/node-api';
 import { spawnSync } from 'node:child_process';
-import { closeSync, existsSync, readFileSync, mkdirSync, openSync, renameSync, statSync, writeSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { appendFileSync, closeSync, existsSync, readFileSync, mkdirSync, openSync, renameSync, statSync, writeSync } from 'node:fs';
+import { loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { normal, seededRandom } from '../../src/core/random';
@@ -63,8 +64,8 @@ async function files(n: number): Promise<{ csv: string; parquet: string }> {
  * Ours, exactly as the CLI reads (src/cli/read-input.ts): CSV streamed in 4 MiB chunks into the
  * core reader; Parquet hashed in one pass, then decoded by offset one row group at a time.
  */
-async function readOurs(path: string): Promise<Table> {
-  const { table } = await readInput(path, { progress: () => {}, cancelled: () => false });
+async function readOurs(path: string, oneThread = false): Promise<Table> {
+  const { table } = await readInput(path, { progress: () => {}, cancelled: () => false, ...(oneThread ? { twoThreadsBytes: Infinity } : {}) });
   return table;
 }
 
@@ -97,7 +98,7 @@ function ownPeakMiB(): number {
  * Peak resident memory of one read in a fresh process (VmHWM, MiB): the in-process
  * figure is a rise above a warmed-up heap, which hides memory the allocator kept from earlier runs.
  */
-function freshPeakMiB(who: 'ours' | 'duck', path: string): number {
+function freshPeakMiB(who: 'ours' | 'ours-one' | 'duck', path: string): number {
   const self = fileURLToPath(import.meta.url);
   const r = spawnSync(process.execPath, ['--import', 'tsx', self, who, path], { encoding: 'utf8' });
   if (r.status !== 0) throw new Error(`load child failed: ${r.stderr}`);
@@ -112,8 +113,11 @@ export async function run(quick: boolean): Promise<void> {
   console.log(`load: ${n} windows × ${D} features; CSV ${(statSync(csv).size / 2 ** 20).toFixed(0)} MiB, Parquet ${(statSync(parquet).size / 2 ** 20).toFixed(0)} MiB`);
   console.log(`memory target: ours at most 2.5 × Float32 matrix (${matrixMiB.toFixed(0)} MiB) + 150 = ${limitMiB.toFixed(0)} MiB`);
   const rows: { task: string; who: string; ms: number; peakMiB: number; check: string }[] = [];
+  const loadBefore = loadavg()[0];
   const oursCsv = await measure(() => readOurs(csv));
   rows.push({ task: 'CSV', who: 'gleaner', ms: oursCsv.ms, peakMiB: oursCsv.peakMiB, check: `${oursCsv.result.nRows} rows` });
+  const oursCsvOne = await measure(() => readOurs(csv, true));
+  rows.push({ task: 'CSV', who: 'gleaner, one thread', ms: oursCsvOne.ms, peakMiB: oursCsvOne.peakMiB, check: `${oursCsvOne.result.nRows} rows` });
   const duckCsv = await measure(() => readDuck(`read_csv('${csv}')`));
   rows.push({ task: 'CSV', who: 'duckdb read_csv', ms: duckCsv.ms, peakMiB: duckCsv.peakMiB, check: `${duckCsv.result} rows` });
   const oursPq = await measure(() => readOurs(parquet));
@@ -121,7 +125,7 @@ export async function run(quick: boolean): Promise<void> {
   const duckPq = await measure(() => readDuck(`read_parquet('${parquet}')`));
   rows.push({ task: 'Parquet', who: 'duckdb read_parquet', ms: duckPq.ms, peakMiB: duckPq.peakMiB, check: `${duckPq.result} rows` });
 
-  const fresh = [freshPeakMiB('ours', csv), freshPeakMiB('duck', csv), freshPeakMiB('ours', parquet), freshPeakMiB('duck', parquet)];
+  const fresh = [freshPeakMiB('ours', csv), freshPeakMiB('ours-one', csv), freshPeakMiB('duck', csv), freshPeakMiB('ours', parquet), freshPeakMiB('duck', parquet)];
   const base = freshPeakMiB('ours', '');
 
   console.log(`\ntask     who                    median ms   rise MiB   fresh-process peak MiB (node alone: ${base.toFixed(0)})   check`);
@@ -129,15 +133,20 @@ export async function run(quick: boolean): Promise<void> {
     console.log(`${r.task.padEnd(8)} ${r.who.padEnd(22)} ${r.ms.toFixed(0).padStart(9)} ${r.peakMiB.toFixed(0).padStart(10)} ${fresh[i].toFixed(0).padStart(12)}   ${r.check}`);
   });
   const ratio = (a: number, b: number) => (a / b).toFixed(2);
-  console.log(`\nCSV: ours / DuckDB time ${ratio(oursCsv.ms, duckCsv.ms)} (target ≤ 1.5); peak in a fresh process ${fresh[0].toFixed(0)} MiB (target ≤ ${limitMiB.toFixed(0)}; rise in this process ${oursCsv.peakMiB.toFixed(0)} MiB)`);
-  console.log(`Parquet: ours / DuckDB time ${ratio(oursPq.ms, duckPq.ms)} (target ≤ 1.5); peak in a fresh process ${fresh[2].toFixed(0)} MiB (target ≤ ${limitMiB.toFixed(0)}; rise in this process ${oursPq.peakMiB.toFixed(0)} MiB)`);
+  console.log(`\nCSV: ours / DuckDB time ${ratio(oursCsv.ms, duckCsv.ms)} (target ≤ 1.5; on one thread ${ratio(oursCsvOne.ms, duckCsv.ms)}); peak in a fresh process ${fresh[0].toFixed(0)} MiB (target ≤ ${limitMiB.toFixed(0)}; rise in this process ${oursCsv.peakMiB.toFixed(0)} MiB)`);
+  console.log(`Parquet: ours / DuckDB time ${ratio(oursPq.ms, duckPq.ms)} (target ≤ 1.5); peak in a fresh process ${fresh[3].toFixed(0)} MiB (target ≤ ${limitMiB.toFixed(0)}; rise in this process ${oursPq.peakMiB.toFixed(0)} MiB)`);
+  const at = new Date().toISOString();
+  const load = [loadBefore, loadavg()[0]].map((l) => Number(l.toFixed(2)));
+  const lines = rows.map((r, i) => JSON.stringify({ suite: 'load', at, quick, n, d: D, loadAverage: load, task: r.task, who: r.who, ms: Math.round(r.ms), freshPeakMiB: Math.round(fresh[i]), riseMiB: Math.round(r.peakMiB), limitMiB: Math.round(limitMiB) }));
+  mkdirSync('bench-results', { recursive: true });
+  appendFileSync('bench-results/load.jsonl', `${lines.join('\n')}\n`);
 }
 
 // Child mode (see freshPeakMiB): `load.ts ours|duck <path>` reads once and prints its peak RSS.
 if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) {
   const [who, path] = process.argv.slice(2);
   if (path) {
-    if (who === 'ours') await readOurs(path);
+    if (who === 'ours' || who === 'ours-one') await readOurs(path, who === 'ours-one');
     else await readDuck(path.endsWith('.csv') ? `read_csv('${path}')` : `read_parquet('${path}')`);
   }
   console.log(JSON.stringify({ peakMiB: ownPeakMiB() }));
