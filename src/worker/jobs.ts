@@ -14,6 +14,7 @@ import type { RoleOverrides, Roles } from '../core/table/roles.types';
 import type { Table } from '../core/table/table';
 import { dataQuality, type DataQuality } from '../core/quality';
 import { RecipeCache } from '../core/recipe/recipe-cache';
+import { hashBlob, type BlobHasher, type RunningBlobHash } from './blob-hash';
 import type { JobHandler } from './host';
 import { splitCluster, type SplitJob } from './split-cluster';
 import { recutJob, type RecutJob, type RecutResult } from './recut-job';
@@ -78,39 +79,57 @@ async function* slicesOf(payload: ParseJob): AsyncGenerator<Uint8Array> {
   }
 }
 
+let blobHasher: BlobHasher | null = null;
+
+/** Lets the parse job hash a Blob on another thread (the app's worker starts a nested worker). */
+export function useBlobHasher(hasher: BlobHasher | null): void {
+  blobHasher = hasher;
+}
+
 /** The jobs every host serves, by name. Handlers are thin: all work is in the core. */
 export const jobs = {
   async parse(payload: ParseJob, ctx: JobContext): Promise<ParseResult> {
     const bytes = payload.bytes ?? [];
     const { blob } = payload;
     const total = blob ? blob.size : (Array.isArray(bytes) ? bytes : [bytes]).reduce((s, c) => s + c.length, 0);
+    // A Blob is hashed on another thread where the host can start one (the app's worker), so the
+    // SHA-256 costs no wall time on a second core; otherwise here, on the way through the reads.
+    const elsewhere: RunningBlobHash | null = blob && blobHasher ? blobHasher(blob) : null;
     const hash = createSha256();
     const formatOf = (first: Uint8Array) => (payload.format !== undefined ? tableFormat(payload.format) : detectFormat(payload.fileName, first));
     const decoding: JobContext = { progress: (_stage, f) => ctx.progress('decoding', f), checkpoint: () => ctx.checkpoint() };
     ctx.progress('reading', 0);
     let table: Table;
-    const blobFormat = blob ? formatOf(new Uint8Array(await blob.slice(0, 8).arrayBuffer())) : null;
-    if (blob && blobFormat && readsByOffset(blobFormat)) {
-      // A File read by offset (Parquet): one row group in memory at a time, hashed on the way.
-      const hashing = hashingSource(blobSource(blob), hash);
-      table = await readTableSource(blobFormat, payload.fileName, hashing, { totalBytes: total, ...payload.options }, decoding);
-      await hashing.finish();
-    } else {
-      let reader: ReturnType<typeof createTableReader> | null = null;
-      for await (const slice of slicesOf(payload)) {
-        reader ??= createTableReader(blobFormat ?? formatOf(slice), payload.fileName, { totalBytes: total, ...payload.options });
-        hash.update(slice);
-        reader.push(slice);
-        ctx.progress('reading', reader.bytesConsumed / Math.max(1, total));
-        await ctx.checkpoint();
+    try {
+      const blobFormat = blob ? formatOf(new Uint8Array(await blob.slice(0, 8).arrayBuffer())) : null;
+      if (blob && blobFormat && readsByOffset(blobFormat)) {
+        // A File read by offset (Parquet): one row group in memory at a time, hashed on the way.
+        const source = blobSource(blob);
+        const hashing = elsewhere ? null : hashingSource(source, hash);
+        table = await readTableSource(blobFormat, payload.fileName, hashing ?? source, { totalBytes: total, ...payload.options }, decoding);
+        await hashing?.finish();
+      } else {
+        let reader: ReturnType<typeof createTableReader> | null = null;
+        for await (const slice of slicesOf(payload)) {
+          reader ??= createTableReader(blobFormat ?? formatOf(slice), payload.fileName, { totalBytes: total, ...payload.options });
+          if (!elsewhere) hash.update(slice);
+          reader.push(slice);
+          ctx.progress('reading', reader.bytesConsumed / Math.max(1, total));
+          await ctx.checkpoint();
+        }
+        reader ??= createTableReader(blobFormat ?? formatOf(new Uint8Array(0)), payload.fileName, { totalBytes: total, ...payload.options });
+        table = await reader.finish(decoding);
       }
-      reader ??= createTableReader(blobFormat ?? formatOf(new Uint8Array(0)), payload.fileName, { totalBytes: total, ...payload.options });
-      table = await reader.finish(decoding);
+      const roles = inferRoles(table, payload.overrides);
+      const warnings = checkTable(table, roles);
+      // Should the hashing thread fail, the file is hashed here after all.
+      const sha256 = elsewhere && blob ? await elsewhere.digest.catch(() => hashBlob(blob)) : hash.hex();
+      ctx.progress('reading', 1);
+      return { table, roles, warnings, sha256 };
+    } catch (err) {
+      elsewhere?.stop();
+      throw err;
     }
-    const roles = inferRoles(table, payload.overrides);
-    const warnings = checkTable(table, roles);
-    ctx.progress('reading', 1);
-    return { table, roles, warnings, sha256: hash.hex() };
   },
   async analyze(payload: AnalyzeJob, ctx: JobContext): Promise<AnalysisResult> {
     const { cacheKey } = payload;

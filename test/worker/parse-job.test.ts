@@ -36,3 +36,42 @@ describe('parse job', () => {
     expect(stages).toContain('decoding');
   });
 });
+
+describe('parse job: the hash on another thread', () => {
+  const csv = new TextEncoder().encode('window_id,subject,acc_mean\n1,S1,0.5\n2,S1,0.75\n3,S2,1.25\n');
+  // SHA-256 as Node's crypto (OpenSSL) computes it.
+  const want = createHash('sha256').update(csv).digest('hex');
+
+  it('takes the digest from the host\'s hasher (hashBlob, as the hashing worker runs it), and hashes here if that fails', async () => {
+    const { useBlobHasher, jobs: all } = await import('../../src/worker/jobs');
+    const { hashBlob } = await import('../../src/worker/blob-hash');
+    const started: number[] = [];
+    try {
+      useBlobHasher((blob) => {
+        started.push(blob.size);
+        return { digest: hashBlob(blob), stop: () => {} };
+      });
+      const ok = await all.parse({ fileName: 'w.csv', blob: new Blob([csv]) }, quietContext);
+      expect(started).toEqual([csv.length]);
+      expect(ok.sha256).toBe(want);
+      useBlobHasher(() => ({ digest: Promise.reject(new Error('no thread')), stop: () => {} }));
+      const fallback = await all.parse({ fileName: 'w.csv', blob: new Blob([csv]) }, quietContext);
+      expect(fallback.sha256).toBe(want);
+      expect(fallback.table.nRows).toBe(3);
+    } finally {
+      useBlobHasher(null);
+    }
+  });
+
+  it('stops the hasher when the file is bad', async () => {
+    const { useBlobHasher, jobs: all } = await import('../../src/worker/jobs');
+    let stopped = 0;
+    try {
+      useBlobHasher(() => ({ digest: new Promise<string>(() => {}), stop: () => { stopped++; } }));
+      await expect(all.parse({ fileName: 'bad.csv', blob: new Blob(['a,b\n1\n']) }, quietContext)).rejects.toThrow('bad.csv, row 2');
+      expect(stopped).toBe(1);
+    } finally {
+      useBlobHasher(null);
+    }
+  });
+});
