@@ -8,8 +8,10 @@ import type { Role } from './roles.types';
 import type { Table } from './table';
 
 const QUOTE = 0x22;
-/** Exact powers of ten 10^0 .. 10^15 (the most fraction digits a quick cell has). */
-const POW10 = Array.from({ length: 16 }, (_, i) => 10 ** i);
+/** Exact powers of ten 10^0 .. 10^22. */
+const POW10 = Array.from({ length: 23 }, (_, i) => 10 ** i);
+/** A relative margin well above the error of a long quick mantissa (see quickRecord). */
+const NEAR = 2 ** -48;
 const LF = 0x0a;
 const CR = 0x0d;
 /** Bytes gathered before the delimiter and decimal mark are guessed. */
@@ -61,7 +63,7 @@ export class CsvReader implements TableReader {
   private quotes = false;
   /** Rows the columns have storage for. */
   private capacity = 0;
-  /** Per column: the block of the current rows, and 1 while plain numbers go straight into it. */
+  /** Per column: the block of the current rows, and how plain numbers go into it (see takeCode). */
   private dst: (Float32Array | Float64Array)[] = [];
   private takes = new Uint8Array(0);
   /** Fields of the record read by quickRecord that the columns must parse (their indices). */
@@ -326,11 +328,11 @@ export class CsvReader implements TableReader {
 
   /**
    * The common record, read in one pass: exactly one field per column, none quoted, ended by a
-   * line end. Plain numbers ([+-]digits[.digits], at most 15 digits, so that mantissa / 10^k is
-   * the correctly rounded value parseNumberBytes gives) are parsed on the way; other cells keep
-   * their bounds for CsvColumn.add. Returns the offset after the record, or -1 when the record
-   * is anything else (blank, ragged, quoted, unfinished): the general path then reads it, and
-   * gives the same table or the same error.
+   * line end. Plain numbers ([+-]digits[.digits][e[+-]digits]) are parsed on the way when the
+   * value is certain to be what the general path stores (see the comment at the check); other
+   * cells keep their bounds for CsvColumn.add. Returns the offset after the record, or -1 when
+   * the record is anything else (blank, ragged, quoted, unfinished): the general path then reads
+   * it, and gives the same table or the same error.
    */
   private quickRecord(buf: Uint8Array, pos: number, len: number): number {
     const nc = this.columns.length;
@@ -355,30 +357,56 @@ export class CsvReader implements TableReader {
         neg = c === 0x2d;
         c = ++pos < len ? buf[pos] : 0;
       }
-      // The first 9 digits in hi and the next ones in lo, in int32 arithmetic (a shorter chain
-      // than doubles); past 15 digits lo may wrap, but such a cell is not plain.
+      // The first 9 significant digits (leading zeros skipped) in hi and the next 9 in lo, in
+      // int32 arithmetic (a shorter chain than doubles); later digits only count.
       let hi = 0;
       let lo = 0;
       let digits = 0;
+      let sig = 0;
       let frac = 0;
       while (c >= 0x30 && c <= 0x39) {
-        if (digits < 9) hi = (hi * 10 + (c - 0x30)) | 0;
-        else lo = (lo * 10 + (c - 0x30)) | 0;
+        if (sig > 0 || c !== 0x30) {
+          if (sig < 9) hi = (hi * 10 + (c - 0x30)) | 0;
+          else if (sig < 18) lo = (lo * 10 + (c - 0x30)) | 0;
+          sig++;
+        }
         digits++;
         c = ++pos < len ? buf[pos] : 0;
       }
       if (c === point) {
         c = ++pos < len ? buf[pos] : 0;
         while (c >= 0x30 && c <= 0x39) {
-          if (digits < 9) hi = (hi * 10 + (c - 0x30)) | 0;
-          else lo = (lo * 10 + (c - 0x30)) | 0;
+          if (sig > 0 || c !== 0x30) {
+            if (sig < 9) hi = (hi * 10 + (c - 0x30)) | 0;
+            else if (sig < 18) lo = (lo * 10 + (c - 0x30)) | 0;
+            sig++;
+          }
           digits++;
           frac++;
           c = ++pos < len ? buf[pos] : 0;
         }
       }
-      const mant = digits <= 9 ? hi : hi * POW10[digits - 9] + lo;
-      let plain = digits > 0 && digits <= 15;
+      let plain = digits > 0;
+      let exp = 0;
+      if (c === 0x65 || c === 0x45) {
+        c = ++pos < len ? buf[pos] : 0;
+        let eneg = false;
+        if (c === 0x2d || c === 0x2b) {
+          eneg = c === 0x2d;
+          c = ++pos < len ? buf[pos] : 0;
+        }
+        let ed = 0;
+        while (c >= 0x30 && c <= 0x39) {
+          exp = exp * 10 + (c - 0x30);
+          ed++;
+          c = ++pos < len ? buf[pos] : 0;
+        }
+        if (ed === 0 || ed > 4) plain = false;
+        if (eneg) exp = -exp;
+      }
+      const kept = sig < 18 ? sig : 18;
+      const mant = kept <= 9 ? hi : hi * POW10[kept - 9] + lo;
+      const p = exp - frac + (sig - kept);
       if (c !== delim && c !== LF && c !== CR) {
         plain = false;
         while (pos < len) {
@@ -387,11 +415,24 @@ export class CsvReader implements TableReader {
           pos++;
         }
       }
+      let v = 0;
+      if (plain) {
+        if (p < -22 || p > 22) plain = false;
+        else {
+          const m = p < 0 ? mant / POW10[-p] : mant * POW10[p];
+          v = neg ? -m : m;
+          // Up to 15 digits, mantissa and power of ten are exact and one division or product is
+          // correctly rounded: v is Number(text). Longer mantissas (17-digit shortest doubles,
+          // 18-digit scientific notation) are kept only where they are stored in Float32 and
+          // v's error (under 3.5e-16 relative) cannot change the Float32 it rounds to: then the
+          // block holds Math.fround(Number(text)), as the general path would store.
+          if (sig > 15 && (takes[j] !== 2 || Math.fround(v * (1 - NEAR)) !== Math.fround(v * (1 + NEAR)))) plain = false;
+        }
+      }
       if (pos >= len) return -1;
-      if (plain && takes[j] === 1) {
+      if (plain && takes[j] !== 0) {
         // Written for row nRows now; if the record turns out unfinished, it is read again into the same row.
-        const v = mant / POW10[frac];
-        dst[j][k] = neg ? -v : v;
+        dst[j][k] = v;
       } else {
         slow[nSlow++] = j;
         fs[j] = s;
@@ -420,7 +461,7 @@ export class CsvReader implements TableReader {
     for (let i = 0; i < this.nSlow; i++) {
       const j = this.slow[i];
       cols[j].add(r, buf, this.fs[j], this.fe[j], false, line, this.fileName);
-      this.takes[j] = cols[j].takesNumbers ? 1 : 0;
+      this.takes[j] = takeCode(cols[j]);
     }
   }
 
@@ -435,7 +476,7 @@ export class CsvReader implements TableReader {
   private setColumns(columns: CsvColumn[]): void {
     this.columns = columns;
     this.dst = columns.map(() => new Float64Array(0));
-    this.takes = new Uint8Array(columns.length).fill(1);
+    this.takes = Uint8Array.from(columns, takeCode);
     this.quickOk = columns.length >= 2;
     while (this.fs.length < columns.length) this.growFields();
   }
@@ -462,7 +503,7 @@ export class CsvReader implements TableReader {
       const text = flag & 2 ? this.unescaped(buf, j, line) : undefined;
       const col = this.columns[j];
       col.add(r, buf, this.fs[j], this.fe[j], flag !== 0, line, this.fileName, text);
-      this.takes[j] = col.takesNumbers ? 1 : 0;
+      this.takes[j] = takeCode(col);
     }
   }
 
@@ -520,6 +561,11 @@ export class CsvReader implements TableReader {
     const f = new Uint8Array(n); f.set(this.ff); this.ff = f;
     this.slow = new Int32Array(n);
   }
+}
+
+/** 0: the column holds text, numbers need their spelling; 1: numbers go to its Float64 block; 2: to its Float32 block. */
+function takeCode(col: CsvColumn): number {
+  return col.takesNumbers ? (col.wide ? 1 : 2) : 0;
 }
 
 function isBlank(b: Uint8Array, s: number, e: number): boolean {

@@ -127,6 +127,36 @@ describe('CSV reader: numbers read in one pass with the record', () => {
     }
   });
 
+  it('stores Math.fround(Number(text)) for long mantissas in Float32: shortest doubles, 18-digit scientific, and Float32 rounding midpoints', async () => {
+    const { seededRandom, normal } = await import('../../../src/core/random');
+    const random = seededRandom(123);
+    const cells: string[] = [];
+    const f32 = new Float32Array(2);
+    const u32 = new Uint32Array(f32.buffer);
+    for (let i = 0; i < 4000; i++) {
+      const v = normal(random) * 10 ** Math.floor(random() * 10 - 5);
+      cells.push(String(v), v.toExponential(17), v.toPrecision(16));
+      // The exact midpoint between two adjacent Float32 values (a double), printed in full: the
+      // quick value lies within 3.5e-16 of it, so which way it rounds is not certain and the
+      // reader must fall back to Number(text) (ties to even).
+      f32[0] = v;
+      u32[1] = u32[0] + 1;
+      const mid = (f32[0] + f32[1]) / 2;
+      cells.push(String(mid), mid.toExponential(19));
+    }
+    const text = `a,b\n${cells.map((c, i) => `${c},${i}`).join('\n')}\n`;
+    const t = parseCsv(enc(text), 'long.csv', { precision: 'float32', delimiter: ',', decimal: '.' });
+    const a = t.columns[0];
+    if (a.kind !== 'numeric') throw new Error('a is not numeric');
+    expect(a.values).toBeInstanceOf(Float32Array);
+    cells.forEach((cell, i) => {
+      const want = Math.fround(Number(cell));
+      expect(Object.is(a.values[i], want) ? 'ok' : `row ${i + 2} "${cell}": ${a.values[i]} vs ${want}`).toBe('ok');
+    });
+    // Ties exist among the midpoints: rounding them from an inexact value would have been wrong.
+    expect(cells.filter((c, i) => i % 5 === 3 && Math.fround(Number(c)) !== Math.fround(Number(c) * (1 + 2 ** -50))).length).toBeGreaterThan(1000);
+  });
+
   it('reads a decimal comma in the same pass (semicolon-separated)', () => {
     const t = parseCsv(enc('a;b\n-0,25;3\n1,5e3;+7,125\n'), 'de.csv', { delimiter: ';', decimal: ',' });
     expect(plain(t)).toEqual([['a', 'numeric', [-0.25, 1500]], ['b', 'numeric', [3, 7.125]]]);
