@@ -11,6 +11,7 @@ import { join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { normal, seededRandom } from '../../src/core/random';
 import { readInput } from '../../src/cli/read-input';
+import { CsvReader } from '../../src/core/table/csv-reader';
 import type { Table } from '../../src/core/table/table';
 import { measure } from '../measure';
 
@@ -105,6 +106,34 @@ function freshPeakMiB(who: 'ours' | 'ours-one' | 'duck', path: string): number {
   return JSON.parse(r.stdout.trim().split('\n').pop() as string).peakMiB;
 }
 
+/**
+ * One thread's parse speed (MB/s, best of 3, from memory, Float32 features) by how the numbers are
+ * written: fixed 6 decimals (the main file), shortest round-trip doubles (17 digits, as
+ * JavaScript and Python print them) and 18-digit scientific notation.
+ */
+function numberFormats(rows: number): { format: string; mbPerS: number }[] {
+  const formats: [string, (v: number) => string][] = [
+    ['fixed 6 decimals', (v) => v.toFixed(6)],
+    ['shortest double', (v) => String(v)],
+    ['scientific, 18 digits', (v) => v.toExponential(17)],
+  ];
+  return formats.map(([format, write]) => {
+    const random = seededRandom(SEED);
+    const lines = [['window_id', 'subject', ...Array.from({ length: D }, (_, j) => `f${j}`)].join(',')];
+    for (let i = 0; i < rows; i++) lines.push([i, `S${i % SUBJECTS}`, ...Array.from({ length: D }, () => write(normal(random) * 3))].join(','));
+    const bytes = new TextEncoder().encode(`${lines.join('\n')}\n`);
+    let best = Infinity;
+    for (let rep = 0; rep < 3; rep++) {
+      const t = performance.now();
+      const reader = new CsvReader('formats.csv', { precision: 'float32' });
+      for (let at = 0; at < bytes.length; at += 4 << 20) reader.push(bytes.subarray(at, at + (4 << 20)));
+      reader.finishSync();
+      best = Math.min(best, performance.now() - t);
+    }
+    return { format, mbPerS: bytes.length / 1e3 / best };
+  });
+}
+
 export async function run(quick: boolean): Promise<void> {
   const n = quick ? 100_000 : 1_000_000;
   const { csv, parquet } = await files(n);
@@ -138,6 +167,9 @@ export async function run(quick: boolean): Promise<void> {
   const at = new Date().toISOString();
   const load = [loadBefore, loadavg()[0]].map((l) => Number(l.toFixed(2)));
   const lines = rows.map((r, i) => JSON.stringify({ suite: 'load', at, quick, n, d: D, loadAverage: load, task: r.task, who: r.who, ms: Math.round(r.ms), freshPeakMiB: Math.round(fresh[i]), riseMiB: Math.round(r.peakMiB), limitMiB: Math.round(limitMiB) }));
+  const formats = numberFormats(quick ? 10_000 : 40_000);
+  console.log(`\nparse speed by number format (one thread, from memory, ${quick ? 10_000 : 40_000} × ${D}): ${formats.map((f) => `${f.format} ${f.mbPerS.toFixed(0)} MB/s`).join('; ')}`);
+  for (const f of formats) lines.push(JSON.stringify({ suite: 'load', at, quick, loadAverage: load, task: 'CSV number format', who: 'gleaner, one thread', format: f.format, mbPerS: Math.round(f.mbPerS) }));
   mkdirSync('bench-results', { recursive: true });
   appendFileSync('bench-results/load.jsonl', `${lines.join('\n')}\n`);
 }
