@@ -90,11 +90,6 @@ export class CsvColumn {
     return block;
   }
 
-  /** The number block holding row r. */
-  blockOf(r: number): Float32Array | Float64Array {
-    return this.num[r >> 16];
-  }
-
   /** True while a number cell is fully kept by writing its value to the block (no text seen yet). */
   get takesNumbers(): boolean {
     return this.codes === null;
