@@ -101,7 +101,7 @@ describe('reading a delimited file on two threads', () => {
     expect(subject?.kind === 'categorical' && subject.dictionary).toContain('S\r\n16');
   }, 60_000);
 
-  it('stops both threads when cancelled', async () => {
+  it('stops when cancelled while both threads read', async () => {
     const path = writeStudy('cancel.csv', 20_000);
     let chunks = 0;
     const read = readInput(path, { ...TWO, progress: () => { chunks++; }, cancelled: () => chunks > 2 });
