@@ -1,6 +1,6 @@
 import { existsSync, mkdirSync, realpathSync, statSync } from 'node:fs';
 import { join, resolve } from 'node:path';
-import { DEFAULT_ANALYSIS_PARAMS, type AnalysisParams, type AnalysisResult } from '../core/analysis.types';
+import type { AnalysisResult } from '../core/analysis.types';
 import { OptionError } from '../core/errors';
 import { categoricalColumn, composeByName } from '../core/composition/compose-by-name';
 import { labelAgreement } from '../core/composition/label-agreement';
@@ -16,13 +16,13 @@ import type { AnalyzeJob } from '../worker/jobs';
 import type { AnalyzeOptions } from './args';
 import type { ProgressReporter } from './progress-bar';
 import { buildSummary } from './summary';
-import { UsageError } from './args';
+import { UsageError } from './usage-error';
 import { writeFileAtomic } from './write-atomic';
 import { writeEventFiles } from './events-output';
 import { windowTimes } from '../core/export/segments';
 import { attachSubjects, recipeOption, useSubjectColumn } from './recipe-options';
 import { keepRows } from '../core/recipe/keep-rows';
-import { pipelineParams } from './pipeline-options';
+import { analyzeParams } from './pipeline-options';
 
 export interface AnalyzeDeps {
   client: JobClient;
@@ -55,11 +55,10 @@ export async function analyzeCommand(opts: AnalyzeOptions, deps: AnalyzeDeps): P
   attachSubjects(matrix, table, roles);
   for (const name of opts.compose ?? []) categoricalColumn(table, name); // fail before the long run
   if (opts.events) windowTimes(table, roles);
-  if (opts.cutHeight === undefined && opts.k > matrix.n) {
-    throw new OptionError('--k', opts.k, `at most the number of windows (${matrix.n})`);
+  if (opts.values.cutHeight === undefined && opts.values.k > matrix.n) {
+    throw new OptionError('--k', opts.values.k, `at most the number of windows (${matrix.n})`);
   }
-  const params: AnalysisParams = { ...DEFAULT_ANALYSIS_PARAMS, k: opts.k, seed: opts.seed, restarts: opts.restarts };
-  Object.assign(params, pipelineParams(opts, matrix.n, params));
+  const params = analyzeParams(opts.values, matrix.n);
   const { n, d, featureNames } = matrix;
   if (recipe) params.recipe = recipe;
   const analyzePayload: AnalyzeJob = { matrix, params };

@@ -1,21 +1,20 @@
-import { DEFAULT_ANALYSIS_PARAMS } from '../core/analysis.types';
-import { PIPELINE_FLAGS, PIPELINE_USAGE, pipelineOptions, type PipelineFlag, type PipelineOptions } from './pipeline-options';
-import { PROGRESS_MODES, type ProgressMode } from './progress-bar';
+import { INPUT_PARAMS, PARAMS, type ImputeChoice, type RunValues, type ScaleChoice } from '../core/params';
+import { OUT, PROGRESS } from './cli-flags';
+import { commandUsage, parseCommand, value, type CommandSpec } from './parse-command';
+import { pipelineValues } from './pipeline-options';
+import type { ProgressMode } from './progress-bar';
+import { UsageError } from './usage-error';
 
-/** A mistake on the command line: the CLI prints the message and exits with code 2. */
-export class UsageError extends Error {
-  constructor(message: string) {
-    super(message);
-    this.name = 'UsageError';
-  }
-}
+export { UsageError };
+export { IMPUTE_CHOICES, SCALE_CHOICES, type ImputeChoice, type ScaleChoice } from '../core/params';
 
-export interface AnalyzeOptions extends PipelineOptions {
+export interface AnalyzeOptions {
   input: string;
   out: string;
-  k: number;
-  seed: number;
-  restarts: number;
+  /** The run parameters as given (defaults for the flags left out). */
+  values: RunValues;
+  /** Flags given, by name: a default run's parameters list nothing it did not ask for. */
+  given: ReadonlySet<string>;
   progress: ProgressMode;
   /** Categorical columns (besides the subject) whose mix per cluster goes into summary.json. */
   compose?: string[];
@@ -31,15 +30,23 @@ export interface AnalyzeOptions extends PipelineOptions {
   events?: boolean;
 }
 
-export const SCALE_CHOICES = ['zscore', 'robust', 'subject-zscore', 'minmax', 'none'] as const;
-export type ScaleChoice = (typeof SCALE_CHOICES)[number];
-export const IMPUTE_CHOICES = ['mean', 'median', 'subject-median', 'drop'] as const;
-export type ImputeChoice = (typeof IMPUTE_CHOICES)[number];
-
 export type Command =
   | { command: 'help' }
   | { command: 'version' }
   | ({ command: 'analyze' } & AnalyzeOptions);
+
+const P = PARAMS;
+const I = INPUT_PARAMS;
+
+/** `gleaner analyze`: its flags in the order the usage lists them. */
+export const ANALYZE: CommandSpec = {
+  name: 'analyze',
+  named: false,
+  flags: [
+    OUT, P.k, P.seed, P.restarts, I.compose, PROGRESS, I.scale, I.impute, I.subject, I.recipe, I.events,
+    P.embed, P.perplexity, P.iterations, P.neighbors, P.minDist, P.metric, P.sampleAbove, P.cluster, P.cutHeight, P.space,
+  ].map((spec) => ({ spec })),
+};
 
 export const USAGE = `Usage: gleaner analyze <windows.csv> --out <dir> [options]
        gleaner sweep <windows.csv> --k-min 2 --k-max 12 [--json]   (metrics per k; gleaner sweep --help)
@@ -51,33 +58,13 @@ and clusters them (k-means or a tree). Writes <dir>/windows.csv (id, subject, st
 <dir>/summary.json (input hash, recipe, algorithms, seed, metrics, subject mix per cluster).
 
 Options:
-  --out <dir>        folder for the outputs (created if missing; never the input's own file)
-  --k <k>            number of clusters, an integer >= 2 (default ${DEFAULT_ANALYSIS_PARAMS.k})
-  --seed <n>         seed for every random step, an integer >= 0 (default ${DEFAULT_ANALYSIS_PARAMS.seed})
-  --restarts <n>     k-means restarts, an integer >= 1 (default ${DEFAULT_ANALYSIS_PARAMS.restarts})
-  --compose <cols>   also report the mix of these categorical columns (comma-separated, e.g.
-                     device,site) per cluster in summary.json, as is done for the subject
-  --progress <mode>  auto (a bar on a terminal, else nothing), bar, lines (plain lines for
-                     batch logs) or none (default auto)
-  --scale <how>      zscore (default), robust (median/IQR), subject-zscore (within each
-                     subject), minmax or none
-  --impute <how>     missing values: mean (default), median, subject-median (each subject's
-                     own median) or drop (leave out windows with any missing value)
-  --subject <column> the column naming each window's subject (default: inferred)
-  --recipe <file>    a recipe JSON file {"version": 1, "steps": [...]} instead of --scale and
-                     --impute; the recipe used is written into summary.json
-  --events           also write <dir>/events.tsv (BIDS-style segments of consecutive windows
-                     of one cluster per subject) and sub-<subject>_annotations.edf (EDF+)
-${PIPELINE_USAGE}
+${commandUsage(ANALYZE)}
   -h, --help         show this help
   -V, --version      show the version
 
 Exit codes: 0 done, 1 bad input or failure, 2 bad command line, 130 cancelled (Ctrl-C).`;
 
-type ValueFlag = 'out' | 'k' | 'seed' | 'restarts' | 'progress' | 'compose' | 'scale' | 'impute' | 'subject' | 'recipe' | PipelineFlag;
-const VALUE_FLAGS: readonly ValueFlag[] = ['out', 'k', 'seed', 'restarts', 'progress', 'compose', 'scale', 'impute', 'subject', 'recipe', ...PIPELINE_FLAGS];
-
-/** Parses the arguments after `gleaner`; throws UsageError with a one-line message. */
+/** Parses the arguments after `gleaner`; throws UsageError or OptionError with a one-line message. */
 export function parseArgs(argv: readonly string[]): Command {
   if (argv.length === 0) throw new UsageError('missing command: expected "analyze <windows.csv> --out <dir>"');
   if (argv.includes('--help') || argv.includes('-h')) return { command: 'help' };
@@ -85,86 +72,26 @@ export function parseArgs(argv: readonly string[]): Command {
   const [command, ...rest] = argv;
   if (command !== 'analyze') throw new UsageError(`unknown command "${command}": expected "analyze"`);
 
-  const values: Partial<Record<ValueFlag, string>> = {};
-  const positionals: string[] = [];
-  let events = false;
-  for (let i = 0; i < rest.length; i++) {
-    const arg = rest[i];
-    if (arg === '--events') { events = true; continue; }
-    if (!arg.startsWith('-') || arg === '-') {
-      positionals.push(arg);
-      continue;
-    }
-    const eq = arg.indexOf('=');
-    const name = (eq >= 0 ? arg.slice(0, eq) : arg).replace(/^--?/, '');
-    if (!arg.startsWith('--') || !(VALUE_FLAGS as readonly string[]).includes(name)) {
-      throw new UsageError(`unknown option "${eq >= 0 ? arg.slice(0, eq) : arg}"`);
-    }
-    const flag = name as ValueFlag;
-    if (values[flag] !== undefined) throw new UsageError(`option --${flag} given twice`);
-    let value: string | undefined;
-    if (eq >= 0) value = arg.slice(eq + 1);
-    else if (i + 1 < rest.length && !rest[i + 1].startsWith('--')) value = rest[++i];
-    if (value === undefined || value === '') throw new UsageError(`option --${flag} needs a value`);
-    values[flag] = value;
-  }
-
+  const parsed = parseCommand(rest, ANALYZE);
+  const { positionals, texts } = parsed;
   if (positionals.length === 0) throw new UsageError('missing input: expected "analyze <windows.csv>"');
   if (positionals.length > 1) throw new UsageError(`expected one input file, got ${positionals.length}: ${positionals.join(' ')}`);
-  if (values.out === undefined) throw new UsageError('missing option --out <dir>');
-  return {
-    command: 'analyze',
-    input: positionals[0],
-    out: values.out,
-    k: integerOption('k', values.k, DEFAULT_ANALYSIS_PARAMS.k, 2),
-    seed: integerOption('seed', values.seed, DEFAULT_ANALYSIS_PARAMS.seed, 0),
-    restarts: integerOption('restarts', values.restarts, DEFAULT_ANALYSIS_PARAMS.restarts, 1),
-    progress: progressOption(values.progress),
-    ...(values.compose !== undefined ? { compose: composeOption(values.compose) } : {}),
-    ...recipeOptions(values),
-    ...pipelineOptions(values),
-    ...(events ? { events: true } : {}),
-  };
-}
-
-function recipeOptions(values: Partial<Record<ValueFlag, string>>): Pick<AnalyzeOptions, 'scale' | 'impute' | 'subject' | 'recipe'> {
-  const out: Pick<AnalyzeOptions, 'scale' | 'impute' | 'subject' | 'recipe'> = {};
-  if (values.recipe !== undefined) {
-    const clash = values.scale !== undefined ? 'scale' : values.impute !== undefined ? 'impute' : undefined;
+  const out = texts.get(OUT.flag);
+  if (out === undefined) throw new UsageError('missing option --out <dir>');
+  const k = value(parsed, P.k);
+  const seed = value(parsed, P.seed);
+  const restarts = value(parsed, P.restarts);
+  const progress = value(parsed, PROGRESS);
+  const opts: Omit<AnalyzeOptions, 'values'> = { input: positionals[0], out, given: new Set(texts.keys()), progress };
+  if (texts.has(I.compose.flag)) opts.compose = value(parsed, I.compose);
+  if (texts.has(I.recipe.flag)) {
+    const clash = [I.scale, I.impute].find((s) => texts.has(s.flag))?.flag;
     if (clash) throw new UsageError(`--recipe and --${clash} cannot be combined: put the ${clash} step in the recipe file`);
-    out.recipe = values.recipe;
+    opts.recipe = texts.get(I.recipe.flag);
   }
-  if (values.scale !== undefined) out.scale = choice('scale', values.scale, SCALE_CHOICES);
-  if (values.impute !== undefined) out.impute = choice('impute', values.impute, IMPUTE_CHOICES);
-  if (values.subject !== undefined) out.subject = values.subject;
-  return out;
-}
-
-function choice<T extends string>(name: string, text: string, allowed: readonly T[]): T {
-  if (!(allowed as readonly string[]).includes(text)) throw new UsageError(`invalid --${name} "${text}": expected one of ${allowed.join(', ')}`);
-  return text as T;
-}
-
-function composeOption(text: string): string[] {
-  const names = text.split(',').map((s) => s.trim());
-  if (names.some((s) => s === '')) throw new UsageError(`invalid --compose "${text}": expected column names separated by commas`);
-  return [...new Set(names)];
-}
-
-function integerOption(name: string, text: string | undefined, fallback: number, min: number): number {
-  if (text === undefined) return fallback;
-  const value = /^[+]?\d+$/.test(text) ? Number(text) : NaN;
-  if (!Number.isSafeInteger(value) || value < min || (name === 'seed' && value > 0xffffffff)) {
-    const range = name === 'seed' ? 'an integer from 0 to 4294967295' : `an integer >= ${min}`;
-    throw new UsageError(`invalid --${name} "${text}": expected ${range}`);
-  }
-  return value;
-}
-
-function progressOption(text: string | undefined): ProgressMode {
-  if (text === undefined) return 'auto';
-  if (!(PROGRESS_MODES as readonly string[]).includes(text)) {
-    throw new UsageError(`invalid --progress "${text}": expected one of ${PROGRESS_MODES.join(', ')}`);
-  }
-  return text as ProgressMode;
+  if (texts.has(I.scale.flag)) opts.scale = value(parsed, I.scale);
+  if (texts.has(I.impute.flag)) opts.impute = value(parsed, I.impute);
+  if (texts.has(I.subject.flag)) opts.subject = texts.get(I.subject.flag);
+  if (texts.has(I.events.flag)) opts.events = true;
+  return { command: 'analyze', ...opts, values: { ...pipelineValues(parsed), k, seed, restarts } };
 }

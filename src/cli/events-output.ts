@@ -6,7 +6,7 @@ import { eventsTsv } from '../core/export/events-tsv';
 import { eventSegments } from '../core/export/segments';
 import type { Roles } from '../core/table/roles.types';
 import type { Table } from '../core/table/table';
-import { UsageError } from './args';
+import { UsageError } from './usage-error';
 import { writeFileAtomic } from './write-atomic';
 
 /**

@@ -10,7 +10,12 @@ import { detectFormat } from '../core/table/format';
 import { inferRoles, roleFromName } from '../core/table/roles';
 import type { Table } from '../core/table/table';
 import { openFileSource } from './file-source';
+import { parseCommand, type CommandSpec } from './parse-command';
 import { readInput } from './read-input';
+import { UsageError } from './usage-error';
+
+/** `gleaner inspect` takes no flags besides --help. */
+const INSPECT: CommandSpec = { name: 'inspect', named: false, flags: [] };
 
 export const INSPECT_USAGE = `Usage: gleaner inspect <file or folder>
 
@@ -26,18 +31,21 @@ export async function runInspect(argv: readonly string[]): Promise<number> {
     process.stdout.write(`${INSPECT_USAGE}\n`);
     return 0;
   }
-  const unknown = argv.find((a) => a.startsWith('-') && a !== '-');
-  if (unknown || argv.length !== 1) {
-    process.stderr.write(`gleaner: ${unknown ? `unknown option "${unknown}"` : 'expected one file: gleaner inspect <file>'} (see gleaner inspect --help)\n`);
+  let positionals: string[];
+  try {
+    positionals = parseCommand(argv, INSPECT).positionals;
+    if (positionals.length !== 1) throw new UsageError('expected one file: gleaner inspect <file>');
+  } catch (err) {
+    process.stderr.write(`gleaner: ${err instanceof Error ? err.message : String(err)} (see gleaner inspect --help)\n`);
     return 2;
   }
   try {
-    const summary = await inspectFile(argv[0]);
+    const summary = await inspectFile(positionals[0]);
     process.stdout.write(`${JSON.stringify(summary, null, 2)}\n`);
     return 0;
   } catch (err) {
     const sys = err as { code?: unknown };
-    const message = err instanceof InputError ? err.message : sys.code === 'ENOENT' ? `cannot open ${argv[0]}: no such file or folder` : sys.code === 'EISDIR' ? `cannot open ${argv[0]}: expected a file, found a folder` : `error: ${err instanceof Error ? err.message : String(err)}`;
+    const message = err instanceof InputError ? err.message : sys.code === 'ENOENT' ? `cannot open ${positionals[0]}: no such file or folder` : sys.code === 'EISDIR' ? `cannot open ${positionals[0]}: expected a file, found a folder` : `error: ${err instanceof Error ? err.message : String(err)}`;
     process.stderr.write(`gleaner: ${message.replace(/\s*\n\s*/g, ' ')}\n`);
     return 1;
   }

@@ -9,12 +9,31 @@ import { checkInputs } from '../core/study/check-inputs';
 import { decodeStudy } from '../core/study/decode';
 import type { Study } from '../core/study/study.types';
 import { featureMatrix } from '../core/table/matrix';
-import { UsageError } from './args';
-import { PROGRESS_MODES, progressReporter, type ProgressMode } from './progress-bar';
+import type { ParamSpec } from '../core/params';
+import { OUT, PROGRESS, PROGRESS_SHORT } from './cli-flags';
+import { commandUsage, parseCommand, value, type CommandSpec } from './parse-command';
+import { progressReporter, type ProgressMode } from './progress-bar';
+import { UsageError } from './usage-error';
 import { readInputStep } from './read-input';
 import { attachSubjects } from './recipe-options';
 import { VERSION } from './version';
 import { writeFileAtomic } from './write-atomic';
+
+const RUN_ID: ParamSpec<string> = { name: 'run', flag: 'run', meta: '<id>', kind: 'text', default: '', help: ['only this run (default: every run)'] };
+const INPUT: ParamSpec<string> = {
+  name: 'input', flag: 'input', meta: '<file>', kind: 'text', default: '',
+  help: ['read the input from here instead of the path saved in the study (one input)'],
+};
+
+/** `gleaner run`: its flags in usage order. */
+export const RUN: CommandSpec = {
+  name: 'run',
+  named: true,
+  flags: [
+    { spec: OUT, help: ['folder for the exports (created if missing; never over an input file)'] },
+    { spec: RUN_ID }, { spec: INPUT }, { spec: PROGRESS, help: PROGRESS_SHORT },
+  ],
+};
 
 export const RUN_USAGE = `Usage: gleaner run <study file> --out <dir> [options]
 
@@ -26,10 +45,7 @@ every run into <dir>/<run id>/: <input>-weak-labels.csv, <input>-provenance.json
 annotation file per subject (sub-<subject>_annotations.edf).
 
 Options:
-  --out <dir>        folder for the exports (created if missing; never over an input file)
-  --run <id>         only this run (default: every run)
-  --input <file>     read the input from here instead of the path saved in the study (one input)
-  --progress <mode>  auto, bar, lines or none (default auto)
+${commandUsage(RUN)}
   -h, --help         show this help
 
 Exit codes: 0 done, 1 bad input (a changed input file, a damaged study) or failure, 2 bad command
@@ -43,35 +59,15 @@ export interface RunCommandOptions {
   progress: ProgressMode;
 }
 
-const VALUE_FLAGS = ['out', 'run', 'input', 'progress'] as const;
-type ValueFlag = (typeof VALUE_FLAGS)[number];
-
-/** Parses the arguments after `gleaner run`; throws UsageError. `null` means --help. */
+/** Parses the arguments after `gleaner run`; throws UsageError or OptionError. `null` means --help. */
 export function parseRunArgs(argv: readonly string[]): RunCommandOptions | null {
   if (argv.includes('--help') || argv.includes('-h')) return null;
-  const values: Partial<Record<ValueFlag, string>> = {};
-  const positionals: string[] = [];
-  for (let i = 0; i < argv.length; i++) {
-    const arg = argv[i];
-    if (!arg.startsWith('-') || arg === '-') { positionals.push(arg); continue; }
-    const eq = arg.indexOf('=');
-    const name = (eq >= 0 ? arg.slice(0, eq) : arg).replace(/^--/, '');
-    if (!arg.startsWith('--') || !(VALUE_FLAGS as readonly string[]).includes(name)) {
-      throw new UsageError(`unknown option "${eq >= 0 ? arg.slice(0, eq) : arg}" for run`);
-    }
-    const flag = name as ValueFlag;
-    if (values[flag] !== undefined) throw new UsageError(`option --${flag} given twice`);
-    const value = eq >= 0 ? arg.slice(eq + 1) : i + 1 < argv.length && !argv[i + 1].startsWith('--') ? argv[++i] : undefined;
-    if (value === undefined || value === '') throw new UsageError(`option --${flag} needs a value`);
-    values[flag] = value;
-  }
+  const parsed = parseCommand(argv, RUN);
+  const { positionals, texts } = parsed;
   if (positionals.length !== 1) throw new UsageError(positionals.length === 0 ? 'missing study: expected "run <study file> --out <dir>"' : `expected one study file, got ${positionals.length}`);
-  if (values.out === undefined) throw new UsageError('missing option --out <dir>');
-  const progress = values.progress ?? 'auto';
-  if (!(PROGRESS_MODES as readonly string[]).includes(progress)) {
-    throw new UsageError(`invalid --progress "${progress}": expected one of ${PROGRESS_MODES.join(', ')}`);
-  }
-  return { study: positionals[0], out: values.out, run: values.run, input: values.input, progress: progress as ProgressMode };
+  const out = texts.get(OUT.flag);
+  if (out === undefined) throw new UsageError('missing option --out <dir>');
+  return { study: positionals[0], out, run: texts.get(RUN_ID.flag), input: texts.get(INPUT.flag), progress: value(parsed, PROGRESS) };
 }
 
 /** Where an input of the study is now: --input, else its saved path (relative paths from the study's folder). */

@@ -1,6 +1,5 @@
 import { readFileSync } from 'node:fs';
 import { basename } from 'node:path';
-import { DEFAULT_ANALYSIS_PARAMS } from '../core/analysis.types';
 import { sweepK, type SweepRow } from '../core/cluster/sweep';
 import { CancelledError, InputError, OptionError } from '../core/errors';
 import type { JobContext } from '../core/job';
@@ -8,8 +7,32 @@ import { baselineRecipe } from '../core/recipe/baseline';
 import { parseCsv } from '../core/table/csv';
 import { featureMatrix } from '../core/table/matrix';
 import { inferRoles } from '../core/table/roles';
-import { UsageError } from './args';
-import { PROGRESS_MODES, progressReporter, type ProgressMode } from './progress-bar';
+import { PARAMS, type ParamSpec } from '../core/params';
+import { JSON_FLAG, PROGRESS, PROGRESS_SHORT } from './cli-flags';
+import { commandUsage, parseCommand, value, type CommandSpec } from './parse-command';
+import { progressReporter, type ProgressMode } from './progress-bar';
+import { UsageError } from './usage-error';
+
+/** The range of k a sweep covers (common practice for a first look: 2 to 12 clusters). */
+export const K_MIN: ParamSpec<number> = {
+  name: 'kMin', flag: 'k-min', meta: '<k>', kind: 'integer', min: 2, default: 2, help: ['smallest k, an integer >= 2 (default {default})'],
+};
+export const K_MAX: ParamSpec<number> = {
+  name: 'kMax', flag: 'k-max', meta: '<k>', kind: 'integer', min: 2, default: 12,
+  help: ['largest k, an integer >= --k-min and below the number of windows (default {default})'],
+};
+
+/** `gleaner sweep`: its flags in usage order. */
+export const SWEEP: CommandSpec = {
+  name: 'sweep',
+  named: true,
+  flags: [
+    { spec: K_MIN }, { spec: K_MAX },
+    { spec: PARAMS.seed, help: ['seed for every random step (default {default})'] },
+    { spec: PARAMS.restarts, help: ['k-means restarts per k, best inertia kept (default {default})'] },
+    { spec: PARAMS.silhouetteSample }, { spec: JSON_FLAG }, { spec: PROGRESS, help: PROGRESS_SHORT },
+  ],
+};
 
 export const SWEEP_USAGE = `Usage: gleaner sweep <windows.csv> [--k-min 2] [--k-max 12] [options]
 
@@ -18,13 +41,7 @@ to --k-max and prints one row per k: inertia (within-cluster sum of squares, for
 mean silhouette (on a seeded sample), Calinski–Harabasz and Davies–Bouldin.
 
 Options:
-  --k-min <k>        smallest k, an integer >= 2 (default 2)
-  --k-max <k>        largest k, an integer >= --k-min and below the number of windows (default 12)
-  --seed <n>         seed for every random step (default ${DEFAULT_ANALYSIS_PARAMS.seed})
-  --restarts <n>     k-means restarts per k, best inertia kept (default ${DEFAULT_ANALYSIS_PARAMS.restarts})
-  --silhouette-sample <n>  windows in the silhouette sample (default ${DEFAULT_ANALYSIS_PARAMS.silhouetteSample})
-  --json             print JSON instead of the table
-  --progress <mode>  auto, bar, lines or none (default auto)
+${commandUsage(SWEEP)}
   -h, --help         show this help
 
 Exit codes: 0 done, 1 bad input or failure, 2 bad command line, 130 cancelled (Ctrl-C).`;
@@ -40,53 +57,21 @@ export interface SweepCommandOptions {
   progress: ProgressMode;
 }
 
-const VALUE_FLAGS = ['k-min', 'k-max', 'seed', 'restarts', 'silhouette-sample', 'progress'] as const;
-type ValueFlag = (typeof VALUE_FLAGS)[number];
-
-function integer(name: string, text: string | undefined, fallback: number, min: number, max = Number.MAX_SAFE_INTEGER): number {
-  if (text === undefined) return fallback;
-  const value = /^[+]?\d+$/.test(text) ? Number(text) : NaN;
-  if (!Number.isSafeInteger(value) || value < min || value > max) {
-    throw new UsageError(`invalid --${name} "${text}": expected an integer from ${min}${max < Number.MAX_SAFE_INTEGER ? ` to ${max}` : ' up'}`);
-  }
-  return value;
-}
-
-/** Parses the arguments after `gleaner sweep`; throws UsageError. `null` means --help. */
+/** Parses the arguments after `gleaner sweep`; throws UsageError or OptionError. `null` means --help. */
 export function parseSweepArgs(argv: readonly string[]): SweepCommandOptions | null {
   if (argv.includes('--help') || argv.includes('-h')) return null;
-  const values: Partial<Record<ValueFlag, string>> = {};
-  const positionals: string[] = [];
-  let json = false;
-  for (let i = 0; i < argv.length; i++) {
-    const arg = argv[i];
-    if (!arg.startsWith('-') || arg === '-') { positionals.push(arg); continue; }
-    if (arg === '--json') { json = true; continue; }
-    const eq = arg.indexOf('=');
-    const name = (eq >= 0 ? arg.slice(0, eq) : arg).replace(/^--/, '');
-    if (!arg.startsWith('--') || !(VALUE_FLAGS as readonly string[]).includes(name)) {
-      throw new UsageError(`unknown option "${eq >= 0 ? arg.slice(0, eq) : arg}" for sweep`);
-    }
-    const flag = name as ValueFlag;
-    if (values[flag] !== undefined) throw new UsageError(`option --${flag} given twice`);
-    let value: string | undefined;
-    if (eq >= 0) value = arg.slice(eq + 1);
-    else if (i + 1 < argv.length && !argv[i + 1].startsWith('--')) value = argv[++i];
-    if (value === undefined || value === '') throw new UsageError(`option --${flag} needs a value`);
-    values[flag] = value;
-  }
+  const parsed = parseCommand(argv, SWEEP);
+  const { positionals } = parsed;
   if (positionals.length !== 1) throw new UsageError(positionals.length === 0 ? 'missing input: expected "sweep <windows.csv>"' : `expected one input file, got ${positionals.length}`);
-  const kMin = integer('k-min', values['k-min'], 2, 2);
-  const kMax = integer('k-max', values['k-max'], Math.max(12, kMin), kMin);
-  const progress = values.progress ?? 'auto';
-  if (!(PROGRESS_MODES as readonly string[]).includes(progress)) {
-    throw new UsageError(`invalid --progress "${progress}": expected one of ${PROGRESS_MODES.join(', ')}`);
-  }
+  const kMin = value(parsed, K_MIN);
+  const kMax = value(parsed, K_MAX, Math.max(K_MAX.default, kMin));
+  if (kMax < kMin) throw new OptionError(`--${K_MAX.flag}`, parsed.texts.get(K_MAX.flag), `an integer >= --k-min (${kMin})`);
+  const progress = value(parsed, PROGRESS);
   return {
-    input: positionals[0], kMin, kMax, json, progress: progress as ProgressMode,
-    seed: integer('seed', values.seed, DEFAULT_ANALYSIS_PARAMS.seed, 0, 0xffffffff),
-    restarts: integer('restarts', values.restarts, DEFAULT_ANALYSIS_PARAMS.restarts, 1),
-    silhouetteSample: integer('silhouette-sample', values['silhouette-sample'], DEFAULT_ANALYSIS_PARAMS.silhouetteSample, 2),
+    input: positionals[0], kMin, kMax, json: value(parsed, JSON_FLAG), progress,
+    seed: value(parsed, PARAMS.seed),
+    restarts: value(parsed, PARAMS.restarts),
+    silhouetteSample: value(parsed, PARAMS.silhouetteSample),
   };
 }
 

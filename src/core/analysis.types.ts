@@ -1,6 +1,9 @@
 import type { Linkage, MergeTree } from './cluster/hierarchy/merge-tree';
 import type { Metric } from './neighbors/knn.types';
 import type { Recipe } from './recipe/recipe.types';
+import { PARAMS, type ClusterSpace } from './params/analysis-params';
+
+export type { ClusterSpace };
 
 /**
  * The contract of one analysis run (load → recipe → embed → cluster → metrics), shared by the
@@ -43,8 +46,6 @@ export interface AnalysisParams {
   /** Measure the map's quality for PCA maps too (t-SNE and UMAP maps are always measured). */
   quality?: boolean;
 }
-
-export type ClusterSpace = 'features' | 'map';
 
 /** The map: PCA (2 axes), t-SNE or UMAP with their main parameters; unset fields take the method's defaults. */
 export type EmbedChoice =
@@ -161,12 +162,13 @@ export interface AnalysisPartial {
   cost?: number;
 }
 
+/** The defaults of the parameter schema (params/analysis-params.ts), in the order runs record them. */
 export const DEFAULT_ANALYSIS_PARAMS: AnalysisParams = {
-  k: 8,
-  seed: 1,
-  restarts: 10,
-  maxIterations: 300,
-  silhouetteSample: 2000,
+  k: PARAMS.k.default,
+  seed: PARAMS.seed.default,
+  restarts: PARAMS.restarts.default,
+  maxIterations: PARAMS.maxIterations.default,
+  silhouetteSample: PARAMS.silhouetteSample.default,
 };
 
 /** One step of the recipe as it was applied, for provenance. */

@@ -1,12 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import { parseArgs, UsageError } from '../../src/cli/args';
+import { OptionError } from '../../src/core/errors';
 import { DEFAULT_ANALYSIS_PARAMS } from '../../src/core/analysis.types';
 import { hasStackTrace, runCli } from './run-cli';
 
 describe('parseArgs(argv)', () => {
   it('reads the analyze command with its flags, in both --flag value and --flag=value forms', () => {
-    expect(parseArgs(['analyze', 'w.csv', '--k', '7', '--seed=3', '--out', 'o', '--restarts', '4'])).toEqual({
-      command: 'analyze', input: 'w.csv', out: 'o', k: 7, seed: 3, restarts: 4, progress: 'auto',
+    expect(parseArgs(['analyze', 'w.csv', '--k', '7', '--seed=3', '--out', 'o', '--restarts', '4'])).toMatchObject({
+      command: 'analyze', input: 'w.csv', out: 'o', values: { k: 7, seed: 3, restarts: 4 }, progress: 'auto',
     });
   });
 
@@ -17,7 +18,7 @@ describe('parseArgs(argv)', () => {
 
   it('fills unset options from the analysis defaults', () => {
     const c = parseArgs(['analyze', '--out', 'o', 'w.csv']);
-    expect(c).toMatchObject({ k: DEFAULT_ANALYSIS_PARAMS.k, seed: DEFAULT_ANALYSIS_PARAMS.seed, restarts: DEFAULT_ANALYSIS_PARAMS.restarts });
+    expect(c).toMatchObject({ values: { k: DEFAULT_ANALYSIS_PARAMS.k, seed: DEFAULT_ANALYSIS_PARAMS.seed, restarts: DEFAULT_ANALYSIS_PARAMS.restarts } });
   });
 
   it('answers --help and --version before anything else', () => {
@@ -32,11 +33,11 @@ describe('parseArgs(argv)', () => {
     [['analyze', 'w.csv', '--out', 'o', '-k', '3'], /unknown option "-k"/],
     [['analyze', 'w.csv', '--out'], /--out needs a value/],
     [['analyze', 'w.csv', '--out', 'o', '--k', '--seed', '2'], /--k needs a value/],
-    [['analyze', 'w.csv', '--out', 'o', '--k', '1'], /invalid --k "1": expected an integer >= 2/],
-    [['analyze', 'w.csv', '--out', 'o', '--k', '2.5'], /invalid --k "2.5"/],
-    [['analyze', 'w.csv', '--out', 'o', '--k', 'seven'], /invalid --k "seven"/],
-    [['analyze', 'w.csv', '--out', 'o', '--seed', '-1'], /invalid --seed "-1"/],
-    [['analyze', 'w.csv', '--out', 'o', '--restarts', '0'], /invalid --restarts "0"/],
+    [['analyze', 'w.csv', '--out', 'o', '--k', '1'], /invalid --k: "1" \(expected an integer >= 2\)/],
+    [['analyze', 'w.csv', '--out', 'o', '--k', '2.5'], /invalid --k: "2.5"/],
+    [['analyze', 'w.csv', '--out', 'o', '--k', 'seven'], /invalid --k: "seven"/],
+    [['analyze', 'w.csv', '--out', 'o', '--seed', '-1'], /invalid --seed: "-1"/],
+    [['analyze', 'w.csv', '--out', 'o', '--restarts', '0'], /invalid --restarts: "0"/],
     [['analyze', 'w.csv', '--out', 'o', '--k', '3', '--k', '4'], /--k given twice/],
     [['analyze', '--out', 'o'], /missing input/],
     [['analyze', 'a.csv', 'b.csv', '--out', 'o'], /expected one input file/],
@@ -44,7 +45,8 @@ describe('parseArgs(argv)', () => {
   ];
   for (const [argv, message] of bad) {
     it(`rejects ${JSON.stringify(argv)} with ${message}`, () => {
-      expect(() => parseArgs(argv)).toThrow(UsageError);
+      // Flag-syntax mistakes are UsageErrors; values outside a parameter's range OptionErrors (both exit 2).
+      expect(() => parseArgs(argv)).toThrow(/invalid --/.test(message.source) ? OptionError : UsageError);
       expect(() => parseArgs(argv)).toThrow(message);
     });
   }
@@ -52,7 +54,7 @@ describe('parseArgs(argv)', () => {
 
 describe('gleaner CLI flag errors (spawned)', () => {
   const cases: [string[], RegExp][] = [
-    [['analyze', 'demo-data/windows.csv', '--out', 'test-output/never', '--k', '1'], /invalid --k "1"/],
+    [['analyze', 'demo-data/windows.csv', '--out', 'test-output/never', '--k', '1'], /invalid --k: "1"/],
     [['analyze', 'demo-data/windows.csv', '--out', 'test-output/never', '--bogus'], /unknown option "--bogus"/],
     [['analyze', 'demo-data/windows.csv', '--out'], /--out needs a value/],
   ];

@@ -22,7 +22,7 @@ describe('parseArgs recipe flags', () => {
   it('accepts --scale, --impute and --subject and rejects unknown values and --recipe with --scale', () => {
     expect(parseArgs(['analyze', 'x.csv', '--out', 'o', '--scale', 'robust', '--impute', 'subject-median', '--subject', 'pid']))
       .toMatchObject({ scale: 'robust', impute: 'subject-median', subject: 'pid' });
-    expect(() => parseArgs(['analyze', 'x.csv', '--out', 'o', '--scale', 'log'])).toThrow(/invalid --scale "log": expected one of zscore, robust, subject-zscore, minmax, none/);
+    expect(() => parseArgs(['analyze', 'x.csv', '--out', 'o', '--scale', 'log'])).toThrow(/invalid --scale: "log" \(expected one of zscore, robust, subject-zscore, minmax, none\)/);
     expect(() => parseArgs(['analyze', 'x.csv', '--out', 'o', '--recipe', 'r.json', '--impute', 'mean'])).toThrow(/--recipe and --impute cannot be combined/);
   });
 });

@@ -32,7 +32,7 @@ describe('gleaner sweep', () => {
   it('exits 2 with one line on a bad range, 1 on a missing file', () => {
     const bad = runCli(['sweep', IRIS, '--k-min', '5', '--k-max', '3']);
     expect(bad.status).toBe(2);
-    expect(bad.stderr).toMatch(/--k-max "3"/);
+    expect(bad.stderr).toMatch(/--k-max: "3"/);
     expect(hasStackTrace(bad.stderr)).toBe(false);
     const tooMany = runCli(['sweep', IRIS, '--k-max', '150', '--progress', 'none']);
     expect(tooMany.status).toBe(2);

@@ -4,7 +4,7 @@ import type { JobClient, RunningJob } from '../../worker/client';
 import type { RecutResult } from '../../worker/recut-job';
 import { describeError, isCancelled } from '../lib/errors';
 import type { AppState } from './app.svelte';
-import { PARAM_LIMITS } from './params.svelte';
+import { PARAMS } from '../../core/params';
 import { recipeInput } from './recipe.svelte';
 import { runName } from './runs.svelte';
 import type { Run } from './study.svelte';
@@ -75,7 +75,7 @@ export class TreeCut {
     this.job?.cancel();
     this.pending = true;
     // The side panel follows the cut, so Run reproduces it.
-    if (run.result.cluster.k <= PARAM_LIMITS.k.max) {
+    if (run.result.cluster.k <= PARAMS.k.panel.max) {
       this.app.params.k = run.result.cluster.k;
       this.app.params.cutBy = 'k';
     }

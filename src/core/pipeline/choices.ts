@@ -1,11 +1,13 @@
 import type { AnalysisParams, ClusterChoice, ClusterSpace, EmbedChoice } from '../analysis.types';
 import { LINKAGES } from '../cluster/hierarchy/merge-tree';
 import { OptionError } from '../errors';
+import { PARAMS } from '../params/analysis-params';
+import { checkParam } from '../params/param-spec';
 
 /** Default principal axes t-SNE and UMAP see when there are more features (common practice: 50). */
 export const DEFAULT_PRE_REDUCE = 50;
 /** Default number of windows above which t-SNE and UMAP sample then place. */
-export const DEFAULT_SAMPLE_ABOVE = 50_000;
+export const DEFAULT_SAMPLE_ABOVE = PARAMS.sampleAbove.default;
 /** A tree cut must leave between 2 and this many clusters. */
 export const MAX_CUT_CLUSTERS = 1000;
 
@@ -22,9 +24,6 @@ export interface PipelineChoices {
 function isInt(v: unknown): v is number {
   return typeof v === 'number' && Number.isInteger(v);
 }
-function isNum(v: unknown): v is number {
-  return typeof v === 'number' && Number.isFinite(v);
-}
 
 /**
  * Reads the pipeline choices of a parameter set (an edge: payloads come from the app, the CLI or a
@@ -34,12 +33,10 @@ function isNum(v: unknown): v is number {
 export function pipelineChoices(params: AnalysisParams): PipelineChoices {
   const embed = embedChoice(params.embed ?? { method: 'pca' });
   const cluster = clusterChoice(params.cluster ?? { method: 'kmeans', k: params.k, restarts: params.restarts, maxIterations: params.maxIterations });
-  const space = params.space ?? 'features';
-  if (space !== 'features' && space !== 'map') throw new OptionError('space', space, '"features" or "map"');
+  const space = checkParam(PARAMS.space, params.space ?? PARAMS.space.default);
   const preReduce = params.preReduce ?? DEFAULT_PRE_REDUCE;
   if (!isInt(preReduce) || preReduce < 2) throw new OptionError('preReduce', preReduce, 'an integer of at least 2');
-  const sampleAbove = params.sampleAbove ?? DEFAULT_SAMPLE_ABOVE;
-  if (!isInt(sampleAbove) || sampleAbove < 100) throw new OptionError('sampleAbove', sampleAbove, 'an integer of at least 100');
+  const sampleAbove = checkParam(PARAMS.sampleAbove, params.sampleAbove ?? PARAMS.sampleAbove.default);
   return { embed, cluster, space, preReduce, sampleAbove, quality: params.quality === true || embed.method !== 'pca' };
 }
 
@@ -48,33 +45,32 @@ function embedChoice(e: EmbedChoice): EmbedChoice {
     case 'pca':
       return { method: 'pca' };
     case 'tsne':
-      if (!isNum(e.perplexity) || e.perplexity <= 0) throw new OptionError('perplexity', e.perplexity, 'a number above 0');
-      if (!isInt(e.iterations) || e.iterations < 1) throw new OptionError('iterations', e.iterations, 'an integer of at least 1');
+      checkParam(PARAMS.perplexity, e.perplexity);
+      checkParam(PARAMS.iterations, e.iterations);
       return e;
     case 'umap':
-      if (!isInt(e.neighbors) || e.neighbors < 2) throw new OptionError('neighbors', e.neighbors, 'an integer of at least 2');
-      if (!isNum(e.minDist) || e.minDist < 0) throw new OptionError('minDist', e.minDist, 'a number of at least 0');
-      if (e.metric !== 'euclidean' && e.metric !== 'cosine') throw new OptionError('metric', e.metric, '"euclidean" or "cosine"');
+      checkParam(PARAMS.neighbors, e.neighbors);
+      checkParam(PARAMS.minDist, e.minDist);
+      checkParam(PARAMS.metric, e.metric);
       return e;
     default:
-      throw new OptionError('embed', (e as { method?: unknown })?.method, '"pca", "tsne" or "umap"');
+      return checkParam(PARAMS.embed, (e as { method?: unknown })?.method) as never;
   }
 }
 
 function clusterChoice(c: ClusterChoice): ClusterChoice {
-  if (c?.method === 'kmeans') {
-    if (!isInt(c.k) || c.k < 2) throw new OptionError('k', c.k, 'an integer of at least 2');
-    if (!isInt(c.restarts) || c.restarts < 1) throw new OptionError('restarts', c.restarts, 'an integer of at least 1');
-    if (!isInt(c.maxIterations) || c.maxIterations < 1) throw new OptionError('maxIterations', c.maxIterations, 'an integer of at least 1');
+  checkParam(PARAMS.cluster, (c as { method?: unknown })?.method);
+  if (c.method === 'kmeans') {
+    checkParam(PARAMS.k, c.k);
+    checkParam(PARAMS.restarts, c.restarts);
+    checkParam(PARAMS.maxIterations, c.maxIterations);
     return c;
   }
-  if (!(LINKAGES as readonly unknown[]).includes(c?.method)) {
-    throw new OptionError('cluster', (c as { method?: unknown })?.method, `"kmeans" or a linkage (${LINKAGES.join(', ')})`);
-  }
+  if (!(LINKAGES as readonly unknown[]).includes(c.method)) throw new OptionError('cluster', c.method, `"kmeans" or a linkage (${LINKAGES.join(', ')})`);
   const hasK = c.k !== undefined, hasH = c.cutHeight !== undefined;
   if (hasK === hasH) throw new OptionError('cluster', c.method, 'either k or cutHeight for a tree cut (not both)');
-  if (hasK && (!isInt(c.k) || c.k < 2)) throw new OptionError('k', c.k, 'an integer of at least 2');
-  if (hasH && (!isNum(c.cutHeight) || c.cutHeight < 0)) throw new OptionError('cutHeight', c.cutHeight, 'a number of at least 0');
+  if (hasK) checkParam(PARAMS.k, c.k);
+  if (hasH) checkParam(PARAMS.cutHeight, c.cutHeight);
   return c;
 }
 

@@ -1,4 +1,6 @@
 import { OptionError } from '../../errors';
+import { PARAMS, perplexityLimit } from '../../params/analysis-params';
+import { checkParam } from '../../params/param-spec';
 
 /** t-SNE options; every field has a default (see TSNE_DEFAULTS). */
 export interface TsneOptions {
@@ -33,8 +35,8 @@ export interface TsneOptions {
 }
 
 export const TSNE_DEFAULTS: Readonly<TsneOptions> = Object.freeze({
-  perplexity: 30,
-  iterations: 750,
+  perplexity: PARAMS.perplexity.default,
+  iterations: PARAMS.iterations.default,
   earlyExaggeration: 12,
   exaggerationIterations: 250,
   learningRate: 'auto',
@@ -59,9 +61,10 @@ export const COST_EVERY = 50;
 export function resolveTsneOptions(options: Partial<TsneOptions>, n: number): TsneOptions {
   const o: TsneOptions = { ...TSNE_DEFAULTS, ...definedOnly(options) };
   if (!Number.isInteger(n) || n < 4) throw new OptionError('number of windows', n, 'at least 4 windows for t-SNE');
-  if (!(Number.isFinite(o.perplexity) && o.perplexity > 0)) throw new OptionError('perplexity', o.perplexity, 'a number above 0');
-  if (o.perplexity >= n) throw new OptionError('perplexity', o.perplexity, `less than the number of windows (${n})`);
-  checkInteger('iterations', o.iterations, 1);
+  checkParam(PARAMS.perplexity, o.perplexity);
+  const fits = perplexityLimit(n);
+  if (!fits.fits(o.perplexity)) throw new OptionError('perplexity', o.perplexity, fits.expected);
+  checkParam(PARAMS.iterations, o.iterations);
   checkInteger('exaggerationIterations', o.exaggerationIterations, 0);
   if (!(Number.isFinite(o.earlyExaggeration) && o.earlyExaggeration >= 1)) {
     throw new OptionError('earlyExaggeration', o.earlyExaggeration, 'a number of at least 1');

@@ -1,5 +1,7 @@
 import { OptionError } from '../../errors';
 import type { Metric } from '../../neighbors/knn.types';
+import { neighborsLimit, PARAMS } from '../../params/analysis-params';
+import { checkParam } from '../../params/param-spec';
 
 export type UmapInit = 'spectral' | 'pca';
 
@@ -28,10 +30,10 @@ export interface UmapOptions {
 export type ResolvedUmapOptions = Required<Omit<UmapOptions, 'epochs'>> & { epochs: number };
 
 export const UMAP_DEFAULTS = {
-  neighbors: 15,
-  minDist: 0.1,
+  neighbors: PARAMS.neighbors.default,
+  minDist: PARAMS.minDist.default,
   spread: 1,
-  metric: 'euclidean',
+  metric: PARAMS.metric.default,
   epochs: 'auto',
   negativeSampleRate: 5,
   learningRate: 1,
@@ -48,16 +50,16 @@ export function autoEpochs(n: number): number {
 export function resolveUmapOptions(options: UmapOptions, n: number): ResolvedUmapOptions {
   const o = { ...UMAP_DEFAULTS, ...stripUndefined(options) };
   if (!Number.isInteger(n) || n < 3) throw new OptionError('number of windows', n, 'at least 3 windows for UMAP');
-  if (!Number.isInteger(o.neighbors) || o.neighbors < 2 || o.neighbors > n - 1) {
-    throw new OptionError('neighbors', o.neighbors, `an integer from 2 to ${n - 1} (fewer than the ${n} windows)`);
-  }
+  checkParam(PARAMS.neighbors, o.neighbors);
+  const fits = neighborsLimit(n);
+  if (!fits.fits(o.neighbors)) throw new OptionError('neighbors', o.neighbors, fits.expected);
   if (!(typeof o.spread === 'number' && o.spread > 0 && Number.isFinite(o.spread))) {
     throw new OptionError('spread', o.spread, 'a positive number');
   }
   if (!(typeof o.minDist === 'number' && o.minDist >= 0 && o.minDist <= o.spread)) {
     throw new OptionError('minDist', o.minDist, `a number from 0 to spread (${o.spread})`);
   }
-  if (o.metric !== 'euclidean' && o.metric !== 'cosine') throw new OptionError('metric', o.metric, '"euclidean" or "cosine"');
+  checkParam(PARAMS.metric, o.metric);
   const epochs = o.epochs === 'auto' ? autoEpochs(n) : o.epochs;
   if (!Number.isInteger(epochs) || epochs < 1 || epochs > 100_000) {
     throw new OptionError('epochs', o.epochs, '"auto" or an integer from 1 to 100000');
