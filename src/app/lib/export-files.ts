@@ -3,7 +3,7 @@ import { weakLabelsCsv } from '../../core/export/weak-labels';
 import { DEFAULT_RECIPE, type Recipe } from '../../core/recipe/recipe.types';
 import type { Table } from '../../core/table/table';
 import type { FileToWrite } from '../../host/host';
-import type { Run, Source } from '../state/study.svelte';
+import type { Run, Source } from '../../core/run/run.types';
 import { CAUTIONS } from '../../core/cautions';
 import { studyExports } from '../../core/export/study-exports';
 import { studyReportHtml, type ReportCluster, type ReportFigure } from '../../core/export/study-report';

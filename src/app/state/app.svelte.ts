@@ -56,11 +56,14 @@ export class AppState {
 
   constructor(readonly host: Host) {
     this.client = startWorker((message) => this.status.fail('The compute worker stopped', message, 'Reload the window to continue.'));
-    this.runs = new Runs(this, this.client);
-    this.curation = new Curation(this, this.client);
-    this.studyFile = new StudyFile(this);
-    this.treeCut = new TreeCut(this, this.client);
-    this.sweep = new SweepState(this, this.client);
+    const { study, params, status, selection, map, dock } = this;
+    // Each sub-state gets what it works on, never the whole app (no import circle).
+    const curation = new Curation({ study, status }, this.client);
+    this.curation = curation;
+    this.runs = new Runs({ study, curation, status, selection, map, track: (job) => this.track(job), ranOne: () => void this.runCount++ }, this.client);
+    this.studyFile = new StudyFile({ study, curation, map, dock, params, selection, status, host, openFile: (file) => this.openFile(file) });
+    this.treeCut = new TreeCut({ study, params, status }, this.client);
+    this.sweep = new SweepState({ study, params, runAnalysis: () => this.runAnalysis() }, this.client);
   }
 
   async openFromHost(): Promise<void> {

@@ -9,8 +9,9 @@ import { describeError, isCancelled } from '../lib/errors';
 import { categoryColour, MISSING_COLOUR } from '../lib/palette';
 import type { Colouring } from '../map/colouring';
 import { packHex } from '../map/raster';
-import type { AppState } from './app.svelte';
-import type { Run } from './study.svelte';
+import type { Status } from './status.svelte';
+import type { Study } from './study.svelte';
+import type { Run } from '../../core/run/run.types';
 
 /** Up to this many clusters get their own Map colour slot (the Map's colour index is one byte). */
 const MAP_SLOTS = 255;
@@ -19,6 +20,12 @@ const MAP_SLOTS = 255;
 export interface RecordedCuration {
   actions: CurationAction[];
   undone: CurationAction[];
+}
+
+/** What the curation works on (given by AppState: no pointer back to it). */
+export interface CurationDeps {
+  readonly study: Study;
+  readonly status: Status;
 }
 
 /**
@@ -37,13 +44,13 @@ export class Curation {
   /** A split is running in the worker. */
   splitting = $state(false);
 
-  constructor(private readonly app: AppState, private readonly client: JobClient) {
-    app.study.namer = (c) => this.displayName(c);
+  constructor(private readonly deps: CurationDeps, private readonly client: JobClient) {
+    deps.study.namer = (c) => this.displayName(c);
   }
 
   /** The shown run's history (a blank one until the first change). */
   get history(): History | null {
-    const run = this.app.study.run;
+    const run = this.deps.study.run;
     if (!run) return null;
     const h = this.histories.get(run);
     if (h) return h;
@@ -75,7 +82,7 @@ export class Curation {
 
   /** Curated cluster per window of `run` when it is the shown run, else the run's own labels. */
   labelsOf(run: Run): Int32Array {
-    return run === this.app.study.run ? (this.labels ?? run.result.labels) : run.result.labels;
+    return run === this.deps.study.run ? (this.labels ?? run.result.labels) : run.result.labels;
   }
 
   get sizes(): Int32Array {
@@ -134,24 +141,24 @@ export class Curation {
 
   /** Applies one change to the shown run; returns false (and reports why) when it does not fit. */
   apply(action: CurationAction): boolean {
-    const run = this.app.study.run, h = this.history;
+    const run = this.deps.study.run, h = this.history;
     if (!run || !h) return false;
     try {
       this.commit(run, record(h, action));
       return true;
     } catch (err) {
-      this.app.status.fail('That change could not be made', describeError(err, 'curation'), 'The clusters are as they were.');
+      this.deps.status.fail('That change could not be made', describeError(err, 'curation'), 'The clusters are as they were.');
       return false;
     }
   }
 
   undo(): void {
-    const run = this.app.study.run, h = this.history;
+    const run = this.deps.study.run, h = this.history;
     if (run && h && canUndo(h)) this.commit(run, undo(h));
   }
 
   redo(): void {
-    const run = this.app.study.run, h = this.history;
+    const run = this.deps.study.run, h = this.history;
     if (run && h && canRedo(h)) this.commit(run, redo(h));
   }
 
@@ -173,27 +180,27 @@ export class Curation {
 
   /** Splits a cluster into k parts: k-means on its windows in the worker, then one 'split' action. */
   async split(cluster: number, k: number): Promise<void> {
-    const { table, run } = this.app.study;
+    const { table, run } = this.deps.study;
     const labels = this.labels;
     if (!table || !run || !labels || this.splitting) return;
     const members: number[] = [];
     for (let i = 0; i < labels.length; i++) if (labels[i] === cluster) members.push(i);
     this.splitting = true;
-    this.app.status.start(`Splitting ${this.displayName(cluster)} (${members.length} windows) into ${k}…`);
+    this.deps.status.start(`Splitting ${this.displayName(cluster)} (${members.length} windows) into ${k}…`);
     try {
       const matrix = featureMatrix(table, run.roles);
       const job = this.client.run<Int32Array>('split', { matrix, params: run.params, members: Int32Array.from(members), k }, {
-        onProgress: (p) => this.app.status.progress(p.stage, p.fraction),
+        onProgress: (p) => this.deps.status.progress(p.stage, p.fraction),
       });
       const parts = await job.result;
-      if (this.app.study.run !== run || this.labels !== labels) {
-        this.app.status.finish('The split was dropped: the clusters changed while it ran.');
+      if (this.deps.study.run !== run || this.labels !== labels) {
+        this.deps.status.finish('The split was dropped: the clusters changed while it ran.');
         return;
       }
-      if (this.apply({ type: 'split', cluster, k, parts })) this.app.status.finish(`Split ${this.displayName(cluster)} into ${k} clusters.`);
+      if (this.apply({ type: 'split', cluster, k, parts })) this.deps.status.finish(`Split ${this.displayName(cluster)} into ${k} clusters.`);
     } catch (err) {
-      if (isCancelled(err)) this.app.status.finish('Split cancelled.');
-      else this.app.status.fail('The split failed', describeError(err, this.app.study.source?.fileName ?? 'study'), 'The clusters are as they were.');
+      if (isCancelled(err)) this.deps.status.finish('Split cancelled.');
+      else this.deps.status.fail('The split failed', describeError(err, this.deps.study.source?.fileName ?? 'study'), 'The clusters are as they were.');
     } finally {
       this.splitting = false;
     }

@@ -1,4 +1,4 @@
-import type { Run } from './study.svelte';
+import type { Run } from '../../core/run/run.types';
 
 /** A figure a view can export: SVG text built from what it drew last, and its size in CSS pixels. */
 export interface ViewFigure {

@@ -6,19 +6,17 @@ import { featureMatrix } from '../../core/table/matrix';
 import { findColumn } from '../../core/table/table';
 import type { JobClient } from '../../worker/client';
 import { describeError, isCancelled } from '../lib/errors';
-import { recipeText, subjectScaledRecipe } from '../views/runs/recipe-text';
+import { subjectScaledRecipe } from '../views/runs/recipe-text';
 import { tableLabels } from '../views/runs/run-rows';
-import type { AppState } from './app.svelte';
-import type { Run } from './study.svelte';
+import type { RunningJob } from '../../worker/client';
+import type { Curation } from './curation.svelte';
+import type { MapState } from './map.svelte';
+import type { Selection } from './selection.svelte';
+import type { Status } from './status.svelte';
+import type { Study } from './study.svelte';
+import type { KeptRun } from './kept-run';
 
-/** One run kept in the study: its name, what it was run with and its result. */
-export interface KeptRun {
-  id: number;
-  name: string;
-  run: Run;
-  /** Cluster names given while this run was shown (restored when it is shown again). */
-  names: string[];
-}
+export type { KeptRun };
 
 /** Figures the views drew last, for the status line and the end-to-end tests. */
 export interface DrawnFigures {
@@ -43,9 +41,17 @@ function labelsId(labels: Int32Array): number {
   return id;
 }
 
-/** A name for a new run: "run 2 · k = 7 · per-subject z-score → impute (mean)". */
-export function runName(id: number, run: Run): string {
-  return `run ${id} · k = ${run.params.k} · ${recipeText(run.params.recipe)}`;
+/** What the runs work on (given by AppState: no pointer back to it). */
+export interface RunsDeps {
+  readonly study: Study;
+  readonly curation: Curation;
+  readonly status: Status;
+  readonly selection: Selection;
+  readonly map: MapState;
+  /** Makes a job the one Cancel stops. */
+  track<T>(job: RunningJob<T>): RunningJob<T>;
+  /** Counts a completed run (tests wait on the count). */
+  ranOne(): void;
 }
 
 /**
@@ -69,18 +75,18 @@ export class Runs {
   private profileKey = '';
   private profileRequest = 0;
 
-  constructor(private readonly app: AppState, private readonly client: JobClient) {}
+  constructor(private readonly deps: RunsDeps, private readonly client: JobClient) {}
 
   /** The kept entry of the shown run. */
   get shown(): KeptRun | null {
-    const run = this.app.study.run;
-    return this.app.study.kept.find((k) => k.run === run) ?? null;
+    const run = this.deps.study.run;
+    return this.deps.study.kept.find((k) => k.run === run) ?? null;
   }
 
   /** The column the Mix composes by (the subject column when none was chosen). */
   composeColumnName(): string {
-    const { table } = this.app.study;
-    const run = this.app.study.run;
+    const { table } = this.deps.study;
+    const run = this.deps.study.run;
     if (!table || !run) return '';
     if (this.composeBy && findColumn(table, this.composeBy)) return this.composeBy;
     return run.roles.find((r) => r.role === 'subject')?.name ?? '';
@@ -88,13 +94,13 @@ export class Runs {
 
   /** Asks the worker for the shown run's profile unless it is the one on screen or on its way. */
   ensureProfile(): void {
-    const { table } = this.app.study;
-    const run = this.app.study.run;
+    const { table } = this.deps.study;
+    const run = this.deps.study.run;
     const kept = this.shown;
     if (!table || !run || !kept) { this.profile = null; this.profileKey = ''; return; }
     const column = this.composeColumnName();
     // Curated labels: a new array only when windows moved (merge, split, move), so names and colours do not recompute.
-    const labels = this.app.curation.labelsOf(run);
+    const labels = this.deps.curation.labelsOf(run);
     const key = `${kept.id}|${column}|${labelsId(labels)}`;
     if (key === this.profileKey) return;
     this.profileKey = key;
@@ -114,7 +120,7 @@ export class Runs {
     const payload = {
       data: matrix.data, n: matrix.n, d: matrix.d, featureNames: matrix.featureNames,
       labels: tableLabels({ labels, windows: run.result.windows }, table.nRows),
-      k: Math.max(run.result.cluster.k, this.app.curation.k),
+      k: Math.max(run.result.cluster.k, this.deps.curation.k),
       compose: column ? findColumn(table, column) : undefined,
       noun: column && column === subject ? 'subject' : column || 'value',
       label: columnWithRole(table, run.roles, 'label'),
@@ -136,7 +142,7 @@ export class Runs {
    * subject, keeps it as a new run, shows it and compares it with the run it came from.
    */
   async rerunSubjectScaled(): Promise<void> {
-    const { app } = this;
+    const app = this.deps;
     const { table, source } = app.study;
     const base = this.shown;
     if (!table || !source || !base || app.status.busy) return;
@@ -166,7 +172,7 @@ export class Runs {
       this.compareWith = base.id;
       app.selection.clear();
       app.map.fitNext = true;
-      app.runCount++;
+      app.ranOne();
       app.status.finish(`Per-subject scaling: ${result.cluster.k} clusters · silhouette ${result.metrics.silhouette.toFixed(2)} · compared with ${base.name}.`);
     } catch (err) {
       if (isCancelled(err)) app.status.finish('Re-run cancelled.');

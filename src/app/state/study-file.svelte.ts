@@ -1,13 +1,19 @@
 import { version } from '../../../package.json';
 import type { AnalysisParams } from '../../core/analysis.types';
 import { checkInputs, decodeStudy, encodeStudy, STUDY_SCHEMA_VERSION, type Study as StudyDoc, type StudyRun } from '../../core/study';
-import type { AutosaveEntry, InputFile, OpenedFile } from '../../host/host';
+import type { AutosaveEntry, Host, InputFile, OpenedFile } from '../../host/host';
 import { isoNow } from '../lib/clock';
 import { describeError } from '../lib/errors';
 import { baseName } from '../lib/export-files';
-import type { AppState } from './app.svelte';
+import type { Curation } from './curation.svelte';
+import type { DockState } from './dock.svelte';
+import type { MapState } from './map.svelte';
+import type { RunParams } from './params.svelte';
+import type { Selection } from './selection.svelte';
+import type { Status } from './status.svelte';
+import type { Study } from './study.svelte';
 import type { ColourBy } from './map.svelte';
-import type { Run } from './study.svelte';
+import type { Run } from '../../core/run/run.types';
 
 /** Autosave checks for changes this often (ms): a crash loses at most about this much work. */
 export const AUTOSAVE_EVERY_MS = 2000;
@@ -28,6 +34,20 @@ interface ViewSettings {
   colourBy?: ColourBy;
   dock?: string | null;
   params?: { k: number; seed: number; restarts: number };
+}
+
+/** What the study file reads and restores (given by AppState: no pointer back to it). */
+export interface StudyFileDeps {
+  readonly study: Study;
+  readonly curation: Curation;
+  readonly map: MapState;
+  readonly dock: DockState;
+  readonly params: RunParams;
+  readonly selection: Selection;
+  readonly status: Status;
+  readonly host: Host;
+  /** Opens a windows table (parse job); false when it did not load. */
+  openFile(file: InputFile): Promise<boolean>;
 }
 
 /**
@@ -52,16 +72,16 @@ export class StudyFile {
   private autosavedSignature = '';
   private timer: ReturnType<typeof setInterval> | null = null;
 
-  constructor(private readonly app: AppState) {}
+  constructor(private readonly deps: StudyFileDeps) {}
 
   /** What changes when the user changes the study (runs, curation, view settings). */
   signature(): string {
-    const { app } = this;
+    const app = this.deps;
     return `${app.study.source?.sha256 ?? ''}|${app.study.kept.length}|${app.study.run ? app.study.kept.findIndex((k) => k.run === app.study.run) : -1}|${app.curation.revision}|${app.map.colourBy}|${app.dock.view}|${app.params.k},${app.params.seed},${app.params.restarts}`;
   }
 
   get dirty(): boolean {
-    return !!this.app.study.run && this.signature() !== this.savedSignature;
+    return !!this.deps.study.run && this.signature() !== this.savedSignature;
   }
 
   /** Starts the autosave timer and looks for an autosave to offer; call once at start. */
@@ -69,8 +89,8 @@ export class StudyFile {
     await this.refreshRecent();
     this.timer ??= setInterval(() => void this.autosave(), AUTOSAVE_EVERY_MS);
     try {
-      const entry = await this.app.host.readAutosave();
-      if (entry && !this.app.study.run) this.offer = entry;
+      const entry = await this.deps.host.readAutosave();
+      if (entry && !this.deps.study.run) this.offer = entry;
     } catch {
       // No autosave store (private browsing): nothing to offer.
     }
@@ -82,12 +102,12 @@ export class StudyFile {
   }
 
   async refreshRecent(): Promise<void> {
-    this.recent = await this.app.host.recentStudies().catch(() => []);
+    this.recent = await this.deps.host.recentStudies().catch(() => []);
   }
 
   /** The study as a document (runs with results and curation, view settings). */
   toDoc(): StudyDoc {
-    const { study, curation, map, dock, params } = this.app;
+    const { study, curation, map, dock, params } = this.deps;
     const source = study.source, table = study.table;
     if (!source || !table) throw new Error('there is no study to save: open a windows table first');
     const kept = study.kept.length > 0 ? study.kept.map((k) => k.run) : study.run ? [study.run] : [];
@@ -114,22 +134,22 @@ export class StudyFile {
   }
 
   async save(saveAs: boolean): Promise<void> {
-    const source = this.app.study.source;
+    const source = this.deps.study.source;
     if (!source) return;
     try {
       const signature = this.signature();
       const bytes = encodeStudy(this.toDoc());
       const suggested = this.name || `${baseName(source.fileName)}${STUDY_EXTENSION}`;
-      const saved = await this.app.host.saveStudy(suggested, bytes, { saveAs });
-      if (!saved) return this.app.status.finish('Save cancelled.');
+      const saved = await this.deps.host.saveStudy(suggested, bytes, { saveAs });
+      if (!saved) return this.deps.status.finish('Save cancelled.');
       this.name = saved.name;
       this.savedSignature = signature;
       this.autosavedSignature = signature;
-      await this.app.host.clearAutosave(source.sha256).catch(() => undefined);
+      await this.deps.host.clearAutosave(source.sha256).catch(() => undefined);
       await this.refreshRecent();
-      this.app.status.finish(`Saved the study as ${saved.name} (${saved.location}).`);
+      this.deps.status.finish(`Saved the study as ${saved.name} (${saved.location}).`);
     } catch (err) {
-      this.app.status.fail('Could not save the study', describeError(err, this.name || source.fileName), 'The study was not saved.');
+      this.deps.status.fail('Could not save the study', describeError(err, this.name || source.fileName), 'The study was not saved.');
     }
   }
 
@@ -137,16 +157,16 @@ export class StudyFile {
   async open(recent?: string): Promise<void> {
     let file: OpenedFile | null = null;
     try {
-      file = await this.app.host.openStudy(recent);
+      file = await this.deps.host.openStudy(recent);
       if (!file) return;
       const doc = decodeStudy(file.bytes, file.name);
       await this.refreshRecent();
       const key = doc.inputs[0]?.sha256;
-      const autosave = key ? await this.app.host.readAutosave(key).catch(() => null) : null;
+      const autosave = key ? await this.deps.host.readAutosave(key).catch(() => null) : null;
       if (autosave && autosave.studyName === file.name) this.offer = autosave;
       this.pending = { doc, name: file.name, fromAutosave: false };
     } catch (err) {
-      this.app.status.fail('Could not open the study', describeError(err, file?.name ?? 'study'), this.app.study.source ? 'The open study is unchanged.' : 'Nothing was opened.');
+      this.deps.status.fail('Could not open the study', describeError(err, file?.name ?? 'study'), this.deps.study.source ? 'The open study is unchanged.' : 'Nothing was opened.');
     }
   }
 
@@ -159,19 +179,19 @@ export class StudyFile {
       const doc = decodeStudy(entry.bytes, `${entry.studyName ?? entry.inputName} (autosave)`);
       this.pending = { doc, name: entry.studyName, fromAutosave: true };
     } catch (err) {
-      this.app.status.fail('Could not restore the autosave', describeError(err, 'autosave'), 'Nothing was restored.');
+      this.deps.status.fail('Could not restore the autosave', describeError(err, 'autosave'), 'Nothing was restored.');
     }
   }
 
   /** The offer stands until answered or until the user opens a table another way (then it is let go, the file kept). */
   get offerShown(): boolean {
-    return !!this.offer && (!this.app.study.source || !!this.pending);
+    return !!this.offer && (!this.deps.study.source || !!this.pending);
   }
 
   async discardOffer(): Promise<void> {
     const entry = this.offer;
     this.offer = null;
-    if (entry) await this.app.host.clearAutosave(entry.key).catch(() => undefined);
+    if (entry) await this.deps.host.clearAutosave(entry.key).catch(() => undefined);
   }
 
   /** The name of the windows table the pending study needs, and whether the demo can stand in. */
@@ -186,16 +206,16 @@ export class StudyFile {
     if (!pending) return;
     let file: InputFile | null;
     try {
-      file = source === 'demo' ? await this.app.host.loadDemo() : await this.app.host.openWindowsFile();
+      file = source === 'demo' ? await this.deps.host.loadDemo() : await this.deps.host.openWindowsFile();
     } catch (err) {
-      return this.app.status.fail('Could not open the windows table', describeError(err, 'file'), 'The study was not opened.');
+      return this.deps.status.fail('Could not open the windows table', describeError(err, 'file'), 'The study was not opened.');
     }
     if (!file) {
       this.pending = { ...pending }; // asks again
       return;
     }
     this.pending = null;
-    if (!(await this.app.openFile(file))) return;
+    if (!(await this.deps.openFile(file))) return;
     this.apply(pending);
   }
 
@@ -204,7 +224,7 @@ export class StudyFile {
   }
 
   private apply(pending: PendingStudy): void {
-    const { app } = this;
+    const app = this.deps;
     const { doc } = pending;
     const source = app.study.source, table = app.study.table;
     if (!source || !table) return;
@@ -243,7 +263,7 @@ export class StudyFile {
 
   /** Writes the autosave when something changed since the last one (called by the timer). */
   async autosave(): Promise<void> {
-    const { app } = this;
+    const app = this.deps;
     const source = app.study.source;
     if (!source || !app.study.run || this.pending || this.offerShown) return;
     const signature = this.signature();

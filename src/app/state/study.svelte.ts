@@ -1,23 +1,9 @@
-import type { AnalysisParams, AnalysisResult } from '../../core/analysis.types';
+import type { Run, Source } from '../../core/run/run.types';
 import type { Role, Roles } from '../../core/table/roles.types';
 import type { Table } from '../../core/table/table';
-import { runName, type KeptRun } from './runs.svelte';
+import { runName, type KeptRun } from './kept-run';
 
-/** Where the current windows table came from, for provenance. */
-export interface Source {
-  fileName: string;
-  sha256: string;
-  bytes: number;
-}
-
-/** The result of one run together with what it was run on. */
-export interface Run {
-  result: AnalysisResult;
-  params: AnalysisParams;
-  /** Roles as they were when the run started (the export records these). */
-  roles: Roles;
-  featureNames: string[];
-}
+export type { Run, Source };
 
 /** The open study: the table, its column roles, the latest run and the names given to clusters. */
 export class Study {

@@ -1,11 +1,20 @@
 import type { SweepRow } from '../../core/cluster/sweep';
 import type { JobClient, RunningJob } from '../../worker/client';
 import { describeError, isCancelled } from '../lib/errors';
-import type { AppState } from './app.svelte';
+import type { RunParams } from './params.svelte';
+import type { Study } from './study.svelte';
 import { recipeInput } from './recipe.svelte';
 
 /** Range the sweep view offers by default (common practice for a first look: 2 to 12 clusters). */
 export const SWEEP_RANGE = { kMin: 2, kMax: 12, limit: 40 } as const;
+
+/** What the sweep works on (given by AppState: no pointer back to it). */
+export interface SweepDeps {
+  readonly study: Study;
+  readonly params: RunParams;
+  /** Runs the analysis with the current parameters. */
+  runAnalysis(): Promise<void>;
+}
 
 /** The k sweep of the shown run's scaled features: one row per k, computed in the worker. */
 export class SweepState {
@@ -22,15 +31,15 @@ export class SweepState {
   private forRun: object | null = null;
   private job: RunningJob<SweepRow[]> | null = null;
 
-  constructor(private readonly app: AppState, private readonly client: JobClient) {}
+  constructor(private readonly deps: SweepDeps, private readonly client: JobClient) {}
 
   /** True when the rows describe the study on screen (same table, recipe and roles). */
   get current(): boolean {
-    return this.rows.length > 0 && this.forRun === this.app.study.table;
+    return this.rows.length > 0 && this.forRun === this.deps.study.table;
   }
 
   async run(): Promise<void> {
-    const { table, run } = this.app.study;
+    const { table, run } = this.deps.study;
     if (!table || !run) return;
     const kMin = Math.round(this.kMin), kMax = Math.round(this.kMax);
     if (!(kMin >= 2 && kMax >= kMin && kMax - kMin < SWEEP_RANGE.limit)) {
@@ -54,7 +63,7 @@ export class SweepState {
       this.rows = rows;
       this.forRun = table;
     } catch (err) {
-      if (this.job === job && !isCancelled(err)) this.error = describeError(err, this.app.study.source?.fileName ?? 'study');
+      if (this.job === job && !isCancelled(err)) this.error = describeError(err, this.deps.study.source?.fileName ?? 'study');
     } finally {
       if (this.job === job) {
         this.job = null;
@@ -69,8 +78,8 @@ export class SweepState {
 
   /** Uses k for the next run (k-means k, or the tree cut) and runs again. */
   async choose(k: number): Promise<void> {
-    this.app.params.k = k;
-    if (this.app.params.cluster !== 'kmeans') this.app.params.cutBy = 'k';
-    await this.app.runAnalysis();
+    this.deps.params.k = k;
+    if (this.deps.params.cluster !== 'kmeans') this.deps.params.cutBy = 'k';
+    await this.deps.runAnalysis();
   }
 }

@@ -3,14 +3,23 @@ import { cutTree } from '../../core/cluster/hierarchy/cut';
 import type { JobClient, RunningJob } from '../../worker/client';
 import type { RecutResult } from '../../worker/recut-job';
 import { describeError, isCancelled } from '../lib/errors';
-import type { AppState } from './app.svelte';
+import type { RunParams } from './params.svelte';
+import type { Status } from './status.svelte';
+import type { Study } from './study.svelte';
 import { PARAMS } from '../../core/params';
 import { recipeInput } from './recipe.svelte';
-import { runName } from './runs.svelte';
-import type { Run } from './study.svelte';
+import { runName } from './kept-run';
+import type { Run } from '../../core/run/run.types';
 
 /** A cut may leave at most this many clusters (the Map's colour index is one byte). */
 export const MAX_TREE_CUT = 255;
+
+/** What the tree cut works on (given by AppState: no pointer back to it). */
+export interface TreeCutDeps {
+  readonly study: Study;
+  readonly params: RunParams;
+  readonly status: Status;
+}
 
 /**
  * The cut of the shown run's tree. Moving the cut recomputes the window labels here on the UI
@@ -25,17 +34,17 @@ export class TreeCut {
   drawnBranches = $state(0);
   private job: RunningJob<RecutResult> | null = null;
 
-  constructor(private readonly app: AppState, private readonly client: JobClient) {}
+  constructor(private readonly deps: TreeCutDeps, private readonly client: JobClient) {}
 
   /** Clusters of the shown run (0 when it has no tree). */
   get k(): number {
-    const r = this.app.study.run?.result;
+    const r = this.deps.study.run?.result;
     return r?.tree ? r.cluster.k : 0;
   }
 
   /** Cuts the shown tree into k clusters and shows the labels; returns false when there is no tree or k is out of range. */
   cutInto(k: number): boolean {
-    const run = this.app.study.run;
+    const run = this.deps.study.run;
     const tree = run?.result.tree;
     if (!run || !tree || run.result.cluster.method !== 'hierarchical') return false;
     const kk = Math.max(2, Math.min(k, tree.n, MAX_TREE_CUT));
@@ -53,7 +62,7 @@ export class TreeCut {
    * names and curation start afresh, since they belonged to the old clusters.
    */
   setLabels(labels: Int32Array): void {
-    const { study } = this.app;
+    const { study } = this.deps;
     const run = study.run;
     if (!run || run.result.cluster.method !== 'hierarchical' || labels.length !== run.result.labels.length) return;
     let k = 0;
@@ -69,15 +78,15 @@ export class TreeCut {
 
   /** Asks the worker for the confidence and cluster means of the shown cut (after a drag ends). */
   async commit(): Promise<void> {
-    const { study } = this.app;
+    const { study } = this.deps;
     const run = study.run, table = study.table;
     if (!run || !table || run.result.cluster.method !== 'hierarchical') return;
     this.job?.cancel();
     this.pending = true;
     // The side panel follows the cut, so Run reproduces it.
     if (run.result.cluster.k <= PARAMS.k.panel.max) {
-      this.app.params.k = run.result.cluster.k;
-      this.app.params.cutBy = 'k';
+      this.deps.params.k = run.result.cluster.k;
+      this.deps.params.cutBy = 'k';
     }
     const job = this.client.run<RecutResult>('recut', {
       matrix: recipeInput(table, run.roles).matrix, params: run.params, labels: run.result.labels, coords: run.result.coords,
@@ -87,9 +96,9 @@ export class TreeCut {
       const { confidence, centroids } = await job.result;
       if (study.run !== run) return; // the cut moved on, or another run is shown
       this.replace(run, { ...run, result: { ...run.result, confidence, centroids } });
-      this.app.status.finish(`Tree cut into ${run.result.cluster.k} clusters (${run.result.cluster.linkage}) · ${run.result.labels.length} windows`);
+      this.deps.status.finish(`Tree cut into ${run.result.cluster.k} clusters (${run.result.cluster.linkage}) · ${run.result.labels.length} windows`);
     } catch (err) {
-      if (!isCancelled(err)) this.app.status.fail('The new cut could not be completed', describeError(err, 'tree cut'), 'Confidence still shows the previous cut.');
+      if (!isCancelled(err)) this.deps.status.fail('The new cut could not be completed', describeError(err, 'tree cut'), 'Confidence still shows the previous cut.');
     } finally {
       if (this.job === job) {
         this.job = null;
@@ -99,7 +108,7 @@ export class TreeCut {
   }
 
   private replace(run: Run, next: Run): void {
-    const { study } = this.app;
+    const { study } = this.deps;
     study.kept = study.kept.map((e) => (e.run === run ? { ...e, run: next, name: runName(e.id, next), names: [] } : e));
     study.run = next;
     study.clusterNames = Array.from({ length: next.result.cluster.k }, () => '');

@@ -2,6 +2,7 @@ import { quietContext, type JobContext } from '../job';
 import type { Random } from '../random';
 import { kmeansPlusPlus } from './kmeanspp';
 import { inertia, runLloyd, type LloydState } from './lloyd';
+import type { KMeansResult } from './kmeans.types';
 import { refineKMeans } from './refine';
 
 /** Default bound on split–merge rounds (each accepted round repairs one split + merge). */
@@ -22,18 +23,7 @@ export interface KMeansOptions {
   refineRounds?: number;
 }
 
-export interface KMeansResult {
-  /** Cluster per window, 0..k-1 (in the order the run produced them). */
-  labels: Int32Array;
-  centres: Float64Array;
-  inertia: number;
-  /** Lloyd iterations of the kept run, its refinement included. */
-  iterations: number;
-  /** Without refinement: the kept run met the tolerance. With it: the refinement reached a fixed point. */
-  converged: boolean;
-  /** Split–merge moves accepted after the restarts. */
-  refinements: number;
-}
+export type { KMeansResult } from './kmeans.types';
 
 /**
  * k-means (Lloyd) with k-means++ seeding and restarts; the run with the lowest inertia is then

@@ -1,5 +1,5 @@
 import type { JobContext } from '../job';
-import type { KMeansResult } from './kmeans';
+import type { KMeansResult } from './kmeans.types';
 import { inertia, runLloyd } from './lloyd';
 import { proposeMove } from './split-merge';
 import { transferPasses } from './transfers';

@@ -1,6 +1,6 @@
 import type { Roles } from '../../../core/table/roles.types';
 import type { Table } from '../../../core/table/table';
-import type { Run } from '../../state/study.svelte';
+import type { Run } from '../../../core/run/run.types';
 import { MAX_TRACES } from '../../state/traces.svelte';
 import { clusterMembers, selectedWindows } from './members';
 import { traceWindows, type TraceWindow } from './windows';
