@@ -12,7 +12,7 @@ import { checkTable } from '../core/table/checks';
 import { inferRoles } from '../core/table/roles';
 import { readInputStep } from './read-input';
 import type { JobClient, RunningJob } from '../worker/client';
-import type { AnalyzeJob } from '../worker/jobs';
+import type { AnalyzeJob, Jobs } from '../worker/jobs';
 import type { AnalyzeOptions } from './args';
 import type { ProgressReporter } from './progress-bar';
 import { buildSummary } from './summary';
@@ -25,7 +25,7 @@ import { keepRows } from '../core/recipe/keep-rows';
 import { analyzeParams } from './pipeline-options';
 
 export interface AnalyzeDeps {
-  client: JobClient;
+  client: JobClient<Jobs>;
   progress: ProgressReporter;
   version: string;
   /** Called with each running job, so that Ctrl-C can cancel it. */
@@ -62,7 +62,7 @@ export async function analyzeCommand(opts: AnalyzeOptions, deps: AnalyzeDeps): P
   const { n, d, featureNames } = matrix;
   if (recipe) params.recipe = recipe;
   const analyzePayload: AnalyzeJob = { matrix, params };
-  const result = await runJob<AnalysisResult>(deps, 'analyze', analyzePayload, [matrix.data.buffer as ArrayBuffer], 'analysing');
+  const result = await runJob(deps, analyzePayload, [matrix.data.buffer as ArrayBuffer], 'analysing');
   // The recipe dropped windows: the outputs list the analysed windows only.
   if (result.windows) ({ table, roles } = keepRows(table, roles, result.windows));
 
@@ -87,8 +87,8 @@ export async function analyzeCommand(opts: AnalyzeOptions, deps: AnalyzeDeps): P
   return { files: [outFiles.windows, outFiles.summary, ...eventFiles], rows: n, result };
 }
 
-async function runJob<R>(deps: AnalyzeDeps, job: string, payload: unknown, transfer: ArrayBuffer[], label: string): Promise<R> {
-  const running = deps.client.run<R>(job, payload, {
+async function runJob(deps: AnalyzeDeps, payload: AnalyzeJob, transfer: ArrayBuffer[], label: string): Promise<AnalysisResult> {
+  const running = deps.client.run('analyze', payload, {
     transfer,
     onProgress: (p) => deps.progress.update(`${label}: ${p.stage}`, p.fraction),
   });

@@ -1,9 +1,10 @@
 import { JobClient } from '../worker/client';
+import type { Jobs } from '../worker/jobs';
 import type { FromHost, ToHost } from '../worker/protocol';
 import { spawnThread } from './spawn-thread';
 
 export interface JobThread {
-  client: JobClient;
+  client: JobClient<Jobs>;
   /** Stops the thread; pending jobs reject. */
   close(): Promise<void>;
 }
@@ -11,7 +12,7 @@ export interface JobThread {
 /** Starts the worker thread that runs the core jobs (thread-entry) and returns a client for it. */
 export function startJobThread(): JobThread {
   const worker = spawnThread('thread-entry');
-  const client = new JobClient({
+  const client = new JobClient<Jobs>({
     post: (message: ToHost, transfer?: Transferable[]) => worker.postMessage(message, (transfer ?? []) as ArrayBuffer[]),
     listen: (handler: (message: FromHost) => void) => worker.on('message', handler),
   });

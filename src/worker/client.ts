@@ -1,5 +1,5 @@
 import { CancelledError, InputError, type InputErrorDetails } from '../core/errors';
-import type { ErrorPayload, FromHost, MessagePortLike, ToHost } from './protocol';
+import type { AnyJobs, ErrorPayload, FromHost, JobTable, MessagePortLike, PayloadOf, ResultOf, ToHost } from './protocol';
 
 export interface Progress {
   stage: string;
@@ -15,8 +15,17 @@ export interface RunningJob<R> {
   cancel(): void;
 }
 
-/** Starts jobs on a job host and routes its messages back to each job's promise. */
-export class JobClient {
+export interface RunOptions {
+  onProgress?: (p: Progress) => void;
+  onPartial?: (value: unknown) => void;
+  transfer?: Transferable[];
+}
+
+/**
+ * Starts jobs on a job host and routes its messages back to each job's promise. Typed by the job
+ * table the host serves (`JobClient<Jobs>`): a job's payload and result types are its handler's.
+ */
+export class JobClient<T extends JobTable = AnyJobs> {
   private nextId = 1;
   /** Jobs started since this client was made, by job name (tests check that reopening a study computes nothing). */
   readonly started: Record<string, number> = {};
@@ -29,14 +38,10 @@ export class JobClient {
     port.listen((msg) => this.receive(msg));
   }
 
-  run<R>(
-    job: string,
-    payload: unknown,
-    options: { onProgress?: (p: Progress) => void; onPartial?: (value: unknown) => void; transfer?: Transferable[] } = {},
-  ): RunningJob<R> {
+  run<N extends keyof T & string>(job: N, payload: PayloadOf<T, N>, options: RunOptions = {}): RunningJob<ResultOf<T, N>> {
     const id = this.nextId++;
     this.started[job] = (this.started[job] ?? 0) + 1;
-    const result = new Promise<R>((resolve, reject) => {
+    const result = new Promise<ResultOf<T, N>>((resolve, reject) => {
       this.pending.set(id, { resolve: resolve as (v: unknown) => void, reject, onProgress: options.onProgress, onPartial: options.onPartial });
     });
     this.port.post({ type: 'run', id, job, payload }, options.transfer);

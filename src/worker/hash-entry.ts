@@ -1,4 +1,4 @@
-import { hashBlob } from './blob-hash';
+import { hashBlob } from '../core/hash/blob-hash';
 
 // Entry of the hashing worker the app's job worker starts for each file it parses: SHA-256 of the
 // posted Blob, read in slices, posted back as { hex } or { error }.

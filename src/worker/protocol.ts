@@ -10,6 +10,16 @@ export interface ErrorPayload {
   details?: unknown;
 }
 
+import type { JobContext } from '../core/job';
+
+/** A table of jobs by name, as a host serves it (worker/jobs.ts `createJobs`). */
+export type JobTable = Record<string, (payload: never, ctx: JobContext) => Promise<unknown>>;
+/** A table that names no job in particular (tests, generic drivers): any payload, unknown results. */
+export type AnyJobs = Record<string, (payload: unknown, ctx: JobContext) => Promise<unknown>>;
+/** The payload a job of the table takes, and the result it resolves to: from its handler's own types. */
+export type PayloadOf<T extends JobTable, N extends keyof T> = Parameters<T[N]>[0];
+export type ResultOf<T extends JobTable, N extends keyof T> = Awaited<ReturnType<T[N]>>;
+
 export type ToHost =
   | { type: 'run'; id: number; job: string; payload: unknown }
   | { type: 'cancel'; id: number };

@@ -1,6 +1,6 @@
-import type { RunningBlobHash } from './blob-hash';
+import type { RunningBlobHash } from '../core/hash/blob-hash';
 import { serveJobs } from './host';
-import { jobs, useBlobHasher } from './jobs';
+import { createJobs } from './jobs';
 import type { FromHost, ToHost } from './protocol';
 
 // Entry of the renderer's Web Worker: serves the core jobs over postMessage. A parsed file's
@@ -11,7 +11,7 @@ interface WorkerScope {
 }
 const scope = self as unknown as WorkerScope;
 
-useBlobHasher((blob): RunningBlobHash | null => {
+const jobs = createJobs({ blobHasher: (blob): RunningBlobHash | null => {
   if (typeof Worker === 'undefined') return null;
   const worker = new Worker(new URL('./hash-entry.ts', import.meta.url), { type: 'module' });
   const digest = new Promise<string>((resolve, reject) => {
@@ -28,7 +28,7 @@ useBlobHasher((blob): RunningBlobHash | null => {
   digest.catch(() => undefined);
   worker.postMessage({ blob });
   return { digest, stop: () => worker.terminate() };
-});
+} });
 serveJobs(
   {
     post: (message: FromHost, transfer?: Transferable[]) => scope.postMessage(message, transfer ?? []),

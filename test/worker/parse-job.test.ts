@@ -43,35 +43,29 @@ describe('parse job: the hash on another thread', () => {
   const want = createHash('sha256').update(csv).digest('hex');
 
   it('takes the digest from the host\'s hasher (hashBlob, as the hashing worker runs it), and hashes here if that fails', async () => {
-    const { useBlobHasher, jobs: all } = await import('../../src/worker/jobs');
-    const { hashBlob } = await import('../../src/worker/blob-hash');
+    const { createJobs } = await import('../../src/worker/jobs');
+    const { hashBlob } = await import('../../src/core/hash/blob-hash');
     const started: number[] = [];
-    try {
-      useBlobHasher((blob) => {
+    const hashing = createJobs({
+      blobHasher: (blob) => {
         started.push(blob.size);
         return { digest: hashBlob(blob), stop: () => {} };
-      });
-      const ok = await all.parse({ fileName: 'w.csv', blob: new Blob([csv]) }, quietContext);
-      expect(started).toEqual([csv.length]);
-      expect(ok.sha256).toBe(want);
-      useBlobHasher(() => ({ digest: Promise.reject(new Error('no thread')), stop: () => {} }));
-      const fallback = await all.parse({ fileName: 'w.csv', blob: new Blob([csv]) }, quietContext);
-      expect(fallback.sha256).toBe(want);
-      expect(fallback.table.nRows).toBe(3);
-    } finally {
-      useBlobHasher(null);
-    }
+      },
+    });
+    const ok = await hashing.parse({ fileName: 'w.csv', blob: new Blob([csv]) }, quietContext);
+    expect(started).toEqual([csv.length]);
+    expect(ok.sha256).toBe(want);
+    const failing = createJobs({ blobHasher: () => ({ digest: Promise.reject(new Error('no thread')), stop: () => {} }) });
+    const fallback = await failing.parse({ fileName: 'w.csv', blob: new Blob([csv]) }, quietContext);
+    expect(fallback.sha256).toBe(want);
+    expect(fallback.table.nRows).toBe(3);
   });
 
   it('stops the hasher when the file is bad', async () => {
-    const { useBlobHasher, jobs: all } = await import('../../src/worker/jobs');
+    const { createJobs } = await import('../../src/worker/jobs');
     let stopped = 0;
-    try {
-      useBlobHasher(() => ({ digest: new Promise<string>(() => {}), stop: () => { stopped++; } }));
-      await expect(all.parse({ fileName: 'bad.csv', blob: new Blob(['a,b\n1\n']) }, quietContext)).rejects.toThrow('bad.csv, row 2');
-      expect(stopped).toBe(1);
-    } finally {
-      useBlobHasher(null);
-    }
+    const all = createJobs({ blobHasher: () => ({ digest: new Promise<string>(() => {}), stop: () => { stopped++; } }) });
+    await expect(all.parse({ fileName: 'bad.csv', blob: new Blob(['a,b\n1\n']) }, quietContext)).rejects.toThrow('bad.csv, row 2');
+    expect(stopped).toBe(1);
   });
 });

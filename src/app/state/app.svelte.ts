@@ -1,7 +1,7 @@
-import type { AnalysisPartial, AnalysisResult } from '../../core/analysis.types';
+import type { AnalysisPartial } from '../../core/analysis.types';
 import type { Host, InputFile } from '../../host/host';
 import type { JobClient, RunningJob } from '../../worker/client';
-import type { ParseResult } from '../../worker/jobs';
+import type { Jobs, ParseResult } from '../../worker/jobs';
 import { version } from '../../../package.json';
 import { featureMatrix } from '../../core/table/matrix';
 import { isoNow } from '../lib/clock';
@@ -39,7 +39,7 @@ export class AppState {
   readonly map = new MapState();
   readonly dock = new DockState();
   readonly recipe = new RecipeState();
-  readonly quality = new QualityState((job, payload) => this.client.run(job, payload));
+  readonly quality = new QualityState((payload) => this.client.run('quality', payload));
   readonly traces = new TracesState();
   readonly live = new LiveLayout();
   readonly figures = new ViewFigures();
@@ -51,7 +51,7 @@ export class AppState {
   aboutOpen = $state(false);
   /** Completed runs since start (tests wait on it). */
   runCount = $state(0);
-  private readonly client: JobClient;
+  private readonly client: JobClient<Jobs>;
   private current: RunningJob<unknown> | null = null;
 
   constructor(readonly host: Host) {
@@ -98,7 +98,7 @@ export class AppState {
     const size = 'blob' in file ? file.blob.size : file.bytes.length;
     try {
       const bytes = 'blob' in file ? null : ownBuffer(file.bytes);
-      job = this.client.run<ParseResult>('parse', bytes ? { fileName: file.name, bytes } : { fileName: file.name, blob: (file as { blob: Blob }).blob }, {
+      job = this.client.run('parse', bytes ? { fileName: file.name, bytes } : { fileName: file.name, blob: (file as { blob: Blob }).blob }, {
         transfer: bytes ? [bytes.buffer] : [],
         onProgress: (p) => this.status.progress(p.stage === 'reading' ? `reading ${mib(p.fraction * size)} of ${mib(size)}` : p.stage, p.fraction),
       });
@@ -140,7 +140,7 @@ export class AppState {
     const featureNames = matrix.featureNames;
     this.status.start(`Running ${runDescription(params)} on ${matrix.n} windows…`);
     this.live.start(performance.now());
-    const job = this.client.run<AnalysisResult>('analyze', { matrix, params, cacheKey: matrixKey(source.sha256, roles) }, {
+    const job = this.client.run('analyze', { matrix, params, cacheKey: matrixKey(source.sha256, roles) }, {
       onProgress: (p) => {
         this.status.progress(p.stage, p.fraction);
         this.live.tick(performance.now(), p.fraction);

@@ -4,6 +4,7 @@ import {
 } from '../../core/curation';
 import { SvelteMap } from 'svelte/reactivity';
 import { featureMatrix } from '../../core/table/matrix';
+import type { Jobs } from '../../worker/jobs';
 import type { JobClient } from '../../worker/client';
 import { describeError, isCancelled } from '../lib/errors';
 import { categoryColour, MISSING_COLOUR } from '../lib/palette';
@@ -44,7 +45,7 @@ export class Curation {
   /** A split is running in the worker. */
   splitting = $state(false);
 
-  constructor(private readonly deps: CurationDeps, private readonly client: JobClient) {
+  constructor(private readonly deps: CurationDeps, private readonly client: JobClient<Jobs>) {
     deps.study.namer = (c) => this.displayName(c);
   }
 
@@ -189,7 +190,7 @@ export class Curation {
     this.deps.status.start(`Splitting ${this.displayName(cluster)} (${members.length} windows) into ${k}…`);
     try {
       const matrix = featureMatrix(table, run.roles);
-      const job = this.client.run<Int32Array>('split', { matrix, params: run.params, members: Int32Array.from(members), k }, {
+      const job = this.client.run('split', { matrix, params: run.params, members: Int32Array.from(members), k }, {
         onProgress: (p) => this.deps.status.progress(p.stage, p.fraction),
       });
       const parts = await job.result;

@@ -1,9 +1,9 @@
-import type { AnalysisResult } from '../../core/analysis.types';
 import { columnWithRole } from '../../core/export/window-columns';
 import type { RunProfile } from '../../core/profile/profile';
 import { subjectCodes } from '../../core/recipe/subject-codes';
 import { featureMatrix } from '../../core/table/matrix';
 import { findColumn } from '../../core/table/table';
+import type { Jobs } from '../../worker/jobs';
 import type { JobClient } from '../../worker/client';
 import { describeError, isCancelled } from '../lib/errors';
 import { subjectScaledRecipe } from '../views/runs/recipe-text';
@@ -75,7 +75,7 @@ export class Runs {
   private profileKey = '';
   private profileRequest = 0;
 
-  constructor(private readonly deps: RunsDeps, private readonly client: JobClient) {}
+  constructor(private readonly deps: RunsDeps, private readonly client: JobClient<Jobs>) {}
 
   /** The kept entry of the shown run. */
   get shown(): KeptRun | null {
@@ -125,7 +125,7 @@ export class Runs {
       noun: column && column === subject ? 'subject' : column || 'value',
       label: columnWithRole(table, run.roles, 'label'),
     };
-    const job = this.client.run<RunProfile>('profile', payload, { transfer: [payload.data.buffer, payload.labels.buffer] });
+    const job = this.client.run('profile', payload, { transfer: [payload.data.buffer, payload.labels.buffer] });
     job.result.then(
       (profile) => { if (request === this.profileRequest) { this.profile = profile; this.profiling = false; } },
       (err: unknown) => {
@@ -164,7 +164,7 @@ export class Runs {
     const params = { ...base.run.params, recipe: subjectScaledRecipe(base.run.params.recipe) };
     app.status.start(`Re-running ${base.name} with per-subject scaling on ${matrix.n} windows…`);
     try {
-      const job = app.track(this.client.run<AnalysisResult>('analyze', { matrix, params }, {
+      const job = app.track(this.client.run('analyze', { matrix, params }, {
         onProgress: (p) => app.status.progress(p.stage, p.fraction),
       }));
       const result = await job.result;

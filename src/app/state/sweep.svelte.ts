@@ -1,5 +1,7 @@
 import type { SweepRow } from '../../core/cluster/sweep';
-import type { JobClient, RunningJob } from '../../worker/client';
+import type { Jobs } from '../../worker/jobs';
+import { NewestJob } from '../../worker/newest-job';
+import type { JobClient } from '../../worker/client';
 import { describeError, isCancelled } from '../lib/errors';
 import type { RunParams } from './params.svelte';
 import type { Study } from './study.svelte';
@@ -29,9 +31,9 @@ export class SweepState {
   drawnPoints = $state(0);
   /** The run the rows were computed for (rows are dropped when another study is opened). */
   private forRun: object | null = null;
-  private job: RunningJob<SweepRow[]> | null = null;
+  private readonly newest = new NewestJob<SweepRow[]>();
 
-  constructor(private readonly deps: SweepDeps, private readonly client: JobClient) {}
+  constructor(private readonly deps: SweepDeps, private readonly client: JobClient<Jobs>) {}
 
   /** True when the rows describe the study on screen (same table, recipe and roles). */
   get current(): boolean {
@@ -46,34 +48,33 @@ export class SweepState {
       this.error = `Choose k from 2 up, with at most ${SWEEP_RANGE.limit} values of k.`;
       return;
     }
-    this.job?.cancel();
+    this.newest.cancel();
     this.error = '';
     this.running = true;
     this.fraction = 0;
-    const job = this.client.run<SweepRow[]>('sweep', { matrix: recipeInput(table, run.roles).matrix, params: run.params, kMin, kMax }, {
+    const job = this.client.run('sweep', { matrix: recipeInput(table, run.roles).matrix, params: run.params, kMin, kMax }, {
       onProgress: (p) => {
         this.stage = p.stage;
         this.fraction = p.fraction;
       },
     });
-    this.job = job;
+    this.newest.start(job);
     try {
       const rows = await job.result;
-      if (this.job !== job) return;
+      if (!this.newest.isNewest(job)) return;
       this.rows = rows;
       this.forRun = table;
     } catch (err) {
-      if (this.job === job && !isCancelled(err)) this.error = describeError(err, this.deps.study.source?.fileName ?? 'study');
+      if (this.newest.isNewest(job) && !isCancelled(err)) this.error = describeError(err, this.deps.study.source?.fileName ?? 'study');
     } finally {
-      if (this.job === job) {
-        this.job = null;
+      if (this.newest.end(job)) {
         this.running = false;
       }
     }
   }
 
   cancel(): void {
-    this.job?.cancel();
+    this.newest.cancel();
   }
 
   /** Uses k for the next run (k-means k, or the tree cut) and runs again. */

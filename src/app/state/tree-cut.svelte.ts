@@ -1,6 +1,8 @@
 import type { AnalysisResult, ClusterRecord } from '../../core/analysis.types';
 import { cutTree } from '../../core/cluster/hierarchy/cut';
-import type { JobClient, RunningJob } from '../../worker/client';
+import type { Jobs } from '../../worker/jobs';
+import { NewestJob } from '../../worker/newest-job';
+import type { JobClient } from '../../worker/client';
 import type { RecutResult } from '../../worker/recut-job';
 import { describeError, isCancelled } from '../lib/errors';
 import type { RunParams } from './params.svelte';
@@ -32,9 +34,9 @@ export class TreeCut {
   pending = $state(false);
   /** Branches the Tree view drew last (the test hook reads it). */
   drawnBranches = $state(0);
-  private job: RunningJob<RecutResult> | null = null;
+  private readonly newest = new NewestJob<RecutResult>();
 
-  constructor(private readonly deps: TreeCutDeps, private readonly client: JobClient) {}
+  constructor(private readonly deps: TreeCutDeps, private readonly client: JobClient<Jobs>) {}
 
   /** Clusters of the shown run (0 when it has no tree). */
   get k(): number {
@@ -81,17 +83,17 @@ export class TreeCut {
     const { study } = this.deps;
     const run = study.run, table = study.table;
     if (!run || !table || run.result.cluster.method !== 'hierarchical') return;
-    this.job?.cancel();
+    this.newest.cancel();
     this.pending = true;
     // The side panel follows the cut, so Run reproduces it.
     if (run.result.cluster.k <= PARAMS.k.panel.max) {
       this.deps.params.k = run.result.cluster.k;
       this.deps.params.cutBy = 'k';
     }
-    const job = this.client.run<RecutResult>('recut', {
+    const job = this.client.run('recut', {
       matrix: recipeInput(table, run.roles).matrix, params: run.params, labels: run.result.labels, coords: run.result.coords,
     });
-    this.job = job;
+    this.newest.start(job);
     try {
       const { confidence, centroids } = await job.result;
       if (study.run !== run) return; // the cut moved on, or another run is shown
@@ -100,8 +102,7 @@ export class TreeCut {
     } catch (err) {
       if (!isCancelled(err)) this.deps.status.fail('The new cut could not be completed', describeError(err, 'tree cut'), 'Confidence still shows the previous cut.');
     } finally {
-      if (this.job === job) {
-        this.job = null;
+      if (this.newest.end(job)) {
         this.pending = false;
       }
     }

@@ -2,11 +2,12 @@ import type { DataQuality } from '../../../core/quality';
 import type { Roles } from '../../../core/table/roles.types';
 import type { Table } from '../../../core/table/table';
 import type { RunningJob } from '../../../worker/client';
+import { NewestJob } from '../../../worker/newest-job';
 import type { QualityJob } from '../../../worker/jobs';
 import { describeError, isCancelled } from '../../lib/errors';
 import { matrixKey, recipeInput } from '../../state/recipe.svelte';
 
-type RunJob = <R>(job: string, payload: unknown) => RunningJob<R>;
+type RunJob = (payload: QualityJob) => RunningJob<DataQuality>;
 
 /**
  * The data-quality report of the open study, computed in the worker ('quality' job) when the
@@ -20,14 +21,13 @@ export class QualityState {
   /** Warnings of the file loaded last. */
   loadWarnings = $state<string[]>([]);
   private key = '';
-  private job: RunningJob<DataQuality> | null = null;
+  private readonly newest = new NewestJob<DataQuality>();
 
   constructor(private readonly runJob: RunJob) {}
 
   /** Forgets the report (a new file was loaded) and keeps its warnings. */
   reset(warnings: string[]): void {
-    this.job?.cancel();
-    this.job = null;
+    this.newest.clear();
     this.key = '';
     this.report = null;
     this.busy = false;
@@ -39,7 +39,7 @@ export class QualityState {
   async request(table: Table, roles: Roles, sha256: string): Promise<void> {
     const key = matrixKey(sha256, roles);
     if (key === this.key) return;
-    this.job?.cancel();
+    this.newest.cancel();
     this.key = key;
     this.error = '';
     let payload: QualityJob;
@@ -51,19 +51,18 @@ export class QualityState {
       this.error = describeError(err, table.fileName);
       return;
     }
-    const job = this.runJob<DataQuality>('quality', payload);
-    this.job = job;
+    const job = this.runJob(payload);
+    this.newest.start(job);
     this.busy = true;
     try {
       const report = await job.result;
-      if (this.job === job) this.report = report;
+      if (this.newest.isNewest(job)) this.report = report;
     } catch (err) {
-      if (this.job === job && !isCancelled(err)) this.error = describeError(err, table.fileName);
-      if (this.job === job) this.key = '';
+      if (this.newest.isNewest(job) && !isCancelled(err)) this.error = describeError(err, table.fileName);
+      if (this.newest.isNewest(job)) this.key = '';
     } finally {
-      if (this.job === job) {
+      if (this.newest.end(job)) {
         this.busy = false;
-        this.job = null;
       }
     }
   }

@@ -1,5 +1,5 @@
-import { blobSource, type SliceableBlob } from '../core/raw/byte-source';
-import { createSha256 } from '../core/hash/sha256';
+import { blobSource, type SliceableBlob } from '../raw/byte-source';
+import { createSha256 } from './sha256';
 
 /** A hash being computed elsewhere (another thread): its hex digest, or stop it. */
 export interface RunningBlobHash {
