@@ -75,7 +75,7 @@ if (electron) {
   process.on('SIGTERM', stop);
   child.on('exit', (code, signal) => process.exit(code ?? (signal ? 0 : 1)));
 } else {
-  if (!flag('--browser')) console.log('electron: the Electron binary is not available here; starting in browser mode');
+  if (!flag('--browser')) console.log('electron: the Electron binary is not installed (`npm run electron:download` fetches it); starting in browser mode');
   await browserMode();
 }
 
