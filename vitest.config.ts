@@ -7,7 +7,7 @@ export default defineConfig({
         test: {
           name: 'node',
           environment: 'node',
-          include: ['test/core/**/*.test.ts', 'test/worker/**/*.test.ts', 'test/cli/**/*.test.ts', 'test/demo/**/*.test.ts', 'test/host/**/*.test.ts', 'test/lint/**/*.test.ts', 'test/app/**/*.test.ts'],
+          include: ['test/core/**/*.test.ts', 'test/worker/**/*.test.ts', 'test/cli/**/*.test.ts', 'test/demo/**/*.test.ts', 'test/host/**/*.test.ts', 'test/lint/**/*.test.ts', 'test/app/**/*.test.ts', 'test/scripts/**/*.test.ts'],
           testTimeout: 60_000,
         },
       },

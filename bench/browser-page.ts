@@ -9,7 +9,7 @@ import { build } from 'vite';
 
 export const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '..');
 
-type ServeApp = (o: { port?: number; root?: string; demoDir?: string }) => Promise<{ url: string; close: () => Promise<void> }>;
+type ServeApp = (o: { port?: number; root?: string; demoDir?: string }) => Promise<{ url: string; openUrl: string; close: () => Promise<void> }>;
 
 export interface BenchPageOptions {
   /** Entry module, relative to the repository (e.g. src/app/map/bench-page.ts). */
@@ -52,7 +52,7 @@ export async function withBenchPage<T>(options: BenchPageOptions, use: (page: Pa
   try {
     const page = context.pages()[0] ?? (await context.newPage());
     page.on('pageerror', (e) => console.error(`bench page error: ${e.message}`));
-    await page.goto(server.url);
+    await page.goto(server.openUrl);
     const result = await use(page);
     return { result, browser: context.browser()?.version() ?? 'chromium' };
   } finally {

@@ -16,11 +16,12 @@ interface Served {
   url: string;
   close: () => Promise<void>;
 }
-type ServeApp = (o: { port?: number; root?: string; demoDir?: string }) => Promise<Served>;
+type ServeApp = (o: { port?: number; root?: string; demoDir?: string }) => Promise<Served & { openUrl: string }>;
 
 export interface Harness {
   page: Page;
   context: BrowserContext;
+  /** The address the app is opened with (it carries the server's key for the demo's data). */
   url: string;
   /** A fresh temporary folder for files the test writes. */
   tempDir: string;
@@ -52,7 +53,7 @@ export async function startHarness(): Promise<Harness> {
   return {
     page,
     context,
-    url: server.url,
+    url: server.openUrl,
     tempDir,
     pageErrors,
     async close() {
