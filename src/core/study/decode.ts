@@ -1,3 +1,5 @@
+import { replay } from '../curation/history';
+import { initialCuration } from '../curation/initial-state';
 import { InputError } from '../errors';
 import { migrateStudy } from './migrate';
 import { readZip } from './zip';
@@ -76,6 +78,14 @@ function checkShape(s: Study, fail: (e: string, f?: string) => never): void {
     if (!Array.isArray(run.curation?.actions)) fail(`${where}.curation.actions as a list`);
     run.curation.undone ??= [];
     run.flags ??= [];
+    if (!Array.isArray(run.curation.undone)) fail(`${where}.curation.undone as a list`);
+    // The recorded actions, then the undone ones as redo would apply them, must fit the run's
+    // clusters and windows: reopening replays them (the app keeps redo working the same way).
+    try {
+      replay(initialCuration(run.result.labels, run.result.cluster?.k), [...run.curation.actions, ...[...run.curation.undone].reverse()]);
+    } catch (err) {
+      fail(`${where}.curation: recorded actions that fit the run's clusters and windows`, err instanceof Error ? err.message : String(err));
+    }
   }
   s.notes ??= '';
   s.view ??= {};
