@@ -8,7 +8,7 @@ export default defineConfig({
           name: 'node',
           environment: 'node',
           setupFiles: ['test/setup/tmpdir.ts'],
-          include: ['test/core/**/*.test.ts', 'test/worker/**/*.test.ts', 'test/cli/**/*.test.ts', 'test/demo/**/*.test.ts', 'test/host/**/*.test.ts', 'test/lint/**/*.test.ts', 'test/app/**/*.test.ts', 'test/scripts/**/*.test.ts'],
+          include: ['test/core/**/*.test.ts', 'test/worker/**/*.test.ts', 'test/cli/**/*.test.ts', 'test/demo/**/*.test.ts', 'test/host/**/*.test.ts', 'test/lint/**/*.test.ts', 'test/app/**/*.test.ts', 'test/scripts/**/*.test.ts', 'test/fuzz/**/*.test.ts'],
           testTimeout: 60_000,
         },
       },

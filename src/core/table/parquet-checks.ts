@@ -17,8 +17,15 @@ const MAX_PAGE_BYTES = 1 << 30;
 
 const safeCount = (n: bigint | number) => Number.isSafeInteger(Number(n)) && Number(n) >= 0;
 
-/** The file's row count is the sum of its row groups'; a flat column chunk holds one value per row. */
+/**
+ * Every column has a name of its own; the file's row count is the sum of its row groups'; a flat
+ * column chunk holds one value per row.
+ */
 export function checkFileCounts(metadata: FileMetaData, schema: SchemaTree): void {
+  const names = schema.children.map((n) => n.element.name);
+  if (names.some((n) => typeof n !== 'string')) throw new Error('a name for every column of the schema');
+  const twice = names.find((n, i) => names.indexOf(n) !== i);
+  if (twice !== undefined) throw new Error(`column names used once, found "${twice}" twice`);
   if (!safeCount(metadata.num_rows)) throw new Error(`a row count, found ${metadata.num_rows}`);
   let sum = 0;
   const flat = new Set(schema.children.filter((n) => n.children.length === 0 && n.element.repetition_type !== 'REPEATED').map((n) => n.element.name));
