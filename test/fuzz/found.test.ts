@@ -13,6 +13,12 @@ const FOUND: [string, FuzzFormat][] = [
   ['arrow-batch-length.arrow', 'arrow'],
   ['parquet-page-values.parquet', 'parquet'],
   ['parquet-unnamed-column.parquet', 'parquet'],
+  ['parquet-level-run-overflow.parquet', 'parquet'],
+  ['parquet-levels-past-length.parquet', 'parquet'],
+  ['parquet-level-length-past-page.parquet', 'parquet'],
+  ['arrow-head-magic-only.arrow', 'arrow'],
+  ['study-k-2-31.gleaner', 'study'],
+  ['study-split-k-2-31.gleaner', 'study'],
   ['study-labels-outside-k.gleaner', 'study'],
   ['study-bad-action.gleaner', 'study'],
 ];

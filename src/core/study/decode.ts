@@ -75,6 +75,8 @@ function checkShape(s: Study, fail: (e: string, f?: string) => never): void {
     if (typeof run?.id !== 'string') fail(`${where} with an id`);
     if (!Number.isInteger(run.input) || run.input < 0 || run.input >= s.inputs.length) fail(`${where}.input to name one of the ${s.inputs.length} inputs`, String(run.input));
     if (!(run.result?.labels instanceof Int32Array)) fail(`${where}.result.labels as an int32 array`);
+    const k = run.result.cluster?.k;
+    if (!Number.isInteger(k) || k < 1 || k > Math.max(1, run.result.labels.length)) fail(`${where}.result.cluster.k from 1 to the ${run.result.labels.length} windows`, String(k));
     if (!Array.isArray(run.curation?.actions)) fail(`${where}.curation.actions as a list`);
     run.curation.undone ??= [];
     run.flags ??= [];

@@ -9,9 +9,9 @@ const MAGIC = [0x41, 0x52, 0x52, 0x4f, 0x57, 0x31];
 /** A footer Block is a 24-byte struct: offset (int64), metaDataLength (int32, padded), bodyLength (int64). */
 const BLOCK_BYTES = 24;
 
-function isFile(b: Uint8Array): boolean {
-  if (b.length < 2 * MAGIC.length + 4) return false;
-  return MAGIC.every((c, i) => b[i] === c && b[b.length - MAGIC.length + i] === c);
+/** Starts with the file format's magic: apache-arrow then reads it as a file, footer and all. */
+function startsAsFile(b: Uint8Array): boolean {
+  return b.length >= MAGIC.length && MAGIC.every((c, i) => b[i] === c);
 }
 
 /**
@@ -23,7 +23,7 @@ function isFile(b: Uint8Array): boolean {
  * the caller turns them into an InputError naming the file.
  */
 export function decodeArrowIpc(bytes: Uint8Array): ArrowTable {
-  const table = isFile(bytes) ? decodeFile(bytes) : tableFromIPC(bytes);
+  const table = startsAsFile(bytes) ? decodeFile(bytes) : tableFromIPC(bytes);
   checkLengths(table, bytes.length);
   return table;
 }
@@ -60,6 +60,7 @@ function rowsHeld(d: Data, fileBytes: number): number {
 
 function decodeFile(bytes: Uint8Array): ArrowTable {
   const size = bytes.length;
+  if (size < 2 * MAGIC.length + 4 || !MAGIC.every((c, i) => bytes[size - MAGIC.length + i] === c)) throw new Error('an Arrow IPC file that ends with "ARROW1" as it starts');
   const footerLength = new DataView(bytes.buffer, bytes.byteOffset, size).getInt32(size - 10, true);
   const footerStart = size - 10 - footerLength;
   if (footerLength <= 0 || footerStart < 8) throw new Error(`a footer length within the file, found ${footerLength}`);

@@ -7,6 +7,7 @@ import { InputError } from '../errors';
 import { quietContext, type JobContext } from '../job';
 import type { ByteSource } from '../raw/byte-source';
 import { checkFileCounts, checkGroupPages } from './parquet-checks';
+import { checkGroupRuns } from './parquet-levels';
 import { decodeNumericChunk, UnsupportedChunk, type NumericType } from './parquet-numeric';
 import { AUTO_FLOAT32_BYTES, DEFAULT_READ_OPTIONS, type ReadOptions } from './reader.types';
 import { roleFromName } from './roles';
@@ -159,6 +160,7 @@ export async function readParquetSource(source: ByteSource, fileName: string, op
       checkGroupPages(file.held, group, schema);
       const rest = decodeNumbers(file.held, group, fast, columns, start);
       if (rest.length > 0) {
+        checkGroupRuns(file.held, group, schema, rest, compressors);
         await parquetRead({
           file, metadata, rowStart: start, rowEnd: end, compressors, parsers: PARSERS, columns: rest,
           onChunk: ({ columnName, columnData, rowStart }) => columns.get(columnName)?.set(rowStart, columnData),
