@@ -23,7 +23,7 @@ let child = null;
 
 /** Lists and removes what is left in this run's temp folder; returns how many entries were left. */
 function cleanTemp() {
-  let left = [];
+  let left;
   try {
     left = readdirSync(runTemp);
   } catch {
