@@ -1,7 +1,7 @@
 // Refuses, in the fuzzing process, any single typed-array or ArrayBuffer allocation larger than a
 // limit: a reader that sizes a buffer from an unchecked field of a small damaged file shows up as
 // an AllocationRefused error (a finding) instead of taking the machine's memory.
-import { AllocationRefused } from './targets';
+import { AllocationRefused } from './allocation-refused';
 
 const CONSTRUCTORS = ['ArrayBuffer', 'SharedArrayBuffer', 'Uint8Array', 'Int8Array', 'Uint8ClampedArray', 'Uint16Array', 'Int16Array', 'Uint32Array', 'Int32Array', 'Float32Array', 'Float64Array', 'BigInt64Array', 'BigUint64Array'] as const;
 

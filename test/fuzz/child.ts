@@ -3,16 +3,16 @@
 // when it ends, with "!i outcome detail" before that for a finding. campaign.ts watches the lines:
 // a mutant that does not end within the time bound is a hang, and the process is killed. Mutants
 // are bytes changed (mutate.ts); for the study and recipe every other one is a structured edit.
+import './guard-first';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { guardAllocations } from './alloc-guard';
 import { mutant } from './mutate';
 import { recipeMutant, studyMutant } from './structured';
 import { FORMATS, seedsFor, type FuzzFormat } from './seeds';
 import { classify, readAs } from './targets';
 
-const [format, campaignSeed, from, to, limit] = process.argv.slice(2);
+const [format, campaignSeed, from, to] = process.argv.slice(2);
 if (!(FORMATS as readonly string[]).includes(format)) throw new Error(`unknown format ${format}`);
 const fmt = format as FuzzFormat;
 
@@ -31,7 +31,6 @@ for (const [k, s] of seeds.entries()) {
     if (err !== undefined) throw new Error(`seed ${k} of ${fmt} is not read: ${err instanceof Error ? err.message : String(err)}`);
   }
 }
-guardAllocations(Number(limit));
 
 // Synchronous on Linux pipes (Node's process.stdout), so ">i" is out before mutant i is read.
 const out = (line: string) => process.stdout.write(`${line}\n`);

@@ -17,6 +17,7 @@ import { createTableReader, readTableSource } from '../../src/core/table/reader'
 import type { TableFormat } from '../../src/core/table/reader.types';
 import { inferRoles } from '../../src/core/table/roles';
 import type { Table } from '../../src/core/table/table';
+import { AllocationRefused } from './allocation-refused';
 import type { FuzzFormat } from './seeds';
 
 export const FILE_NAMES: Record<FuzzFormat, string> = {
@@ -98,14 +99,6 @@ export async function readAs(format: FuzzFormat, bytes: Uint8Array, variant: num
 }
 
 export type Outcome = 'read' | 'refused' | 'crash' | 'unlocated' | 'allocation' | 'hang';
-
-/** Thrown by the allocation guard (alloc-guard.ts) instead of allocating. */
-export class AllocationRefused extends Error {
-  constructor(readonly bytes: number, readonly limit: number) {
-    super(`an allocation of ${bytes} bytes (limit ${limit})`);
-    this.name = 'AllocationRefused';
-  }
-}
 
 /** The outcome of one read, and for a finding what was thrown. */
 export function classify(format: FuzzFormat, err: unknown): { outcome: Outcome; detail?: string } {
