@@ -4,7 +4,7 @@
 // a mutant that does not end within the time bound is a hang, and the process is killed. Mutants
 // are bytes changed (mutate.ts); for the study and recipe every other one is a structured edit.
 import './guard-first';
-import { mkdtempSync, rmSync } from 'node:fs';
+import { mkdtempSync, rmSync, writeSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { mutant } from './mutate';
@@ -32,8 +32,20 @@ for (const [k, s] of seeds.entries()) {
   }
 }
 
-// Synchronous on Linux pipes (Node's process.stdout), so ">i" is out before mutant i is read.
-const out = (line: string) => process.stdout.write(`${line}\n`);
+// Written synchronously, waiting while the pipe is full: ">i" must be out before mutant i is read,
+// and process.stdout would queue lines while the mutants' promises never leave the microtask queue.
+const pause = new Int32Array(new SharedArrayBuffer(4));
+const out = (line: string) => {
+  const bytes = Buffer.from(`${line}\n`);
+  for (let at = 0; at < bytes.length;) {
+    try {
+      at += writeSync(1, bytes, at);
+    } catch (err) {
+      if ((err as NodeJS.ErrnoException).code !== 'EAGAIN') throw err;
+      Atomics.wait(pause, 0, 0, 1);
+    }
+  }
+};
 /** Odd mutants of the study and recipe keep the ZIP and JSON valid (structured.ts), so the checks behind them are reached. */
 function next(i: number) {
   const structured = i % 2 === 1 && (fmt === 'study' || fmt === 'recipe');
