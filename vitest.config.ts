@@ -7,7 +7,8 @@ export default defineConfig({
         test: {
           name: 'node',
           environment: 'node',
-          include: ['test/core/**/*.test.ts', 'test/worker/**/*.test.ts', 'test/cli/**/*.test.ts', 'test/demo/**/*.test.ts', 'test/host/**/*.test.ts', 'test/lint/**/*.test.ts', 'test/app/**/*.test.ts'],
+          setupFiles: ['test/setup/tmpdir.ts'],
+          include: ['test/core/**/*.test.ts', 'test/worker/**/*.test.ts', 'test/cli/**/*.test.ts', 'test/demo/**/*.test.ts', 'test/host/**/*.test.ts', 'test/lint/**/*.test.ts', 'test/app/**/*.test.ts', 'test/scripts/**/*.test.ts', 'test/fuzz/**/*.test.ts'],
           testTimeout: 60_000,
         },
       },
@@ -15,6 +16,7 @@ export default defineConfig({
         test: {
           name: 'e2e',
           environment: 'node',
+          setupFiles: ['test/setup/tmpdir.ts'],
           include: ['test/e2e/**/*.test.ts'],
           testTimeout: 180_000,
           hookTimeout: 180_000,

@@ -9,7 +9,7 @@ import { build } from 'vite';
 
 export const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '..');
 
-type ServeApp = (o: { port?: number; root?: string; demoDir?: string }) => Promise<{ url: string; close: () => Promise<void> }>;
+type ServeApp = (o: { port?: number; root?: string; demoDir?: string }) => Promise<{ url: string; openUrl: string; close: () => Promise<void> }>;
 
 export interface BenchPageOptions {
   /** Entry module, relative to the repository (e.g. src/app/map/bench-page.ts). */
@@ -26,6 +26,14 @@ export interface BenchPageOptions {
  */
 export async function withBenchPage<T>(options: BenchPageOptions, use: (page: Page) => Promise<T>): Promise<{ result: T; browser: string }> {
   const tmp = mkdtempSync(join(tmpdir(), `gleaner-${options.name}-bench-`));
+  try {
+    return await inTemp(tmp, options, use);
+  } finally {
+    rmSync(tmp, { recursive: true, force: true });
+  }
+}
+
+async function inTemp<T>(tmp: string, options: BenchPageOptions, use: (page: Page) => Promise<T>): Promise<{ result: T; browser: string }> {
   const site = join(tmp, 'site');
   const bundle = `${options.name}-bench.js`;
   await build({
@@ -42,8 +50,9 @@ export async function withBenchPage<T>(options: BenchPageOptions, use: (page: Pa
   writeFileSync(join(site, 'index.html'), `<!doctype html><meta charset="utf-8"><title>${options.name} bench</title>\n<body style="margin:0"><canvas></canvas><script type="module" src="./${bundle}"></script></body>\n`);
   const { serveApp } = (await import(pathToFileURL(join(ROOT, 'scripts/serve.mjs')).href)) as { serveApp: ServeApp };
   const server = await serveApp({ port: 0, root: site, demoDir: site });
+  const { chromiumPath } = (await import(pathToFileURL(join(ROOT, 'scripts/browser.mjs')).href)) as { chromiumPath: () => string };
   const context = await chromium.launchPersistentContext(join(tmp, 'profile'), {
-    executablePath: '/usr/bin/chromium',
+    executablePath: chromiumPath(),
     headless: true,
     viewport: options.viewport,
     args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking',
@@ -52,12 +61,11 @@ export async function withBenchPage<T>(options: BenchPageOptions, use: (page: Pa
   try {
     const page = context.pages()[0] ?? (await context.newPage());
     page.on('pageerror', (e) => console.error(`bench page error: ${e.message}`));
-    await page.goto(server.url);
+    await page.goto(server.openUrl);
     const result = await use(page);
     return { result, browser: context.browser()?.version() ?? 'chromium' };
   } finally {
     await context.close();
     await server.close();
-    rmSync(tmp, { recursive: true, force: true });
   }
 }

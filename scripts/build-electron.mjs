@@ -14,7 +14,7 @@ export function electronBuildOptions({ outdir = 'dist-electron', write = true } 
     bundle: true,
     platform: 'node',
     format: 'cjs',
-    // Electron 45 runs Node 22.
+    // Electron 40 (package.json) embeds a Node at least as new as 22; node22 is safe for it.
     target: 'node22',
     external: ['electron'],
     sourcemap: write,

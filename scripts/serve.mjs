@@ -1,104 +1,110 @@
 // A loopback-only static server for the built renderer (browser mode), used by `npm start` and
 // by the end-to-end tests. Serves dist/renderer at / and the demo study's files at /demo/.
-import { createReadStream, existsSync, statSync } from 'node:fs';
+//
+// It serves its own page only (serve-guard.mjs): a request must name the server's own loopback
+// address and port in Host, carry no foreign Origin, and stay inside the served folders. The demo's
+// data also needs this launch's key: the page is opened at /key/<key>/, which sets the key as a
+// cookie and sends the browser on to /; requests without it get 403. Headers: serve-headers.mjs.
+import { randomBytes } from 'node:crypto';
+import { createReadStream, statSync } from 'node:fs';
 import { createServer } from 'node:http';
-import { extname, normalize, resolve, sep } from 'node:path';
+import { extname, resolve } from 'node:path';
+import { headers, TYPES } from './serve-headers.mjs';
+import { cookieValue, fileInside, keyCookieName, keyMatches, parseRange, pathSegments, refusal } from './serve-guard.mjs';
 
-const TYPES = {
-  '.html': 'text/html; charset=utf-8',
-  '.js': 'text/javascript; charset=utf-8',
-  '.css': 'text/css; charset=utf-8',
-  '.json': 'application/json; charset=utf-8',
-  '.csv': 'text/csv; charset=utf-8',
-  '.svg': 'image/svg+xml',
-  '.png': 'image/png',
-  '.map': 'application/json; charset=utf-8',
-  '.edf': 'application/octet-stream',
-};
+export { parseRange };
 
-/** Resolves a URL path inside `root`, or null when it would leave it. */
-function inside(root, urlPath) {
-  const p = normalize(decodeURIComponent(urlPath)).replace(/^([/\\])+/, '');
-  const full = resolve(root, p);
-  return full === root || full.startsWith(root + sep) ? full : null;
+/** @param {import('node:http').ServerResponse} res */
+function refuse(res, status, reason) {
+  const body = `${reason}\n`;
+  res.writeHead(status, headers({ 'content-type': 'text/plain; charset=utf-8', 'content-length': Buffer.byteLength(body) }));
+  res.end(body);
 }
 
-/** Largest byte range served in one answer (the readers ask for a few records at a time). */
-const MAX_RANGE_BYTES = 64 * 1024 * 1024;
-
 /**
- * One byte range "bytes=a-b", "bytes=a-" or "bytes=-n" clipped to the file, or null when it is
- * malformed, asks for several ranges, starts past the end or is larger than MAX_RANGE_BYTES.
- * @param {string} header
- * @param {number} size
- * @returns {{ start: number, end: number } | null}
+ * Answers with the file, whole or one byte range (the Traces view reads raw files in pieces).
+ * @param {import('node:http').IncomingMessage} req
+ * @param {import('node:http').ServerResponse} res
+ * @param {string} file
  */
-export function parseRange(header, size) {
-  const m = /^bytes=(\d*)-(\d*)$/.exec(header.trim());
-  if (!m || (m[1] === '' && m[2] === '') || size === 0) return null;
-  let start, end;
-  if (m[1] === '') {
-    start = Math.max(0, size - Number(m[2]));
-    end = size - 1;
-  } else {
-    start = Number(m[1]);
-    end = m[2] === '' ? size - 1 : Math.min(Number(m[2]), size - 1);
+function sendFile(req, res, file) {
+  const size = statSync(file).size;
+  const base = { 'content-type': TYPES[extname(file)] ?? 'application/octet-stream', 'accept-ranges': 'bytes' };
+  let status = 200;
+  let range = { start: 0, end: size - 1 };
+  const rangeHeader = req.headers.range;
+  if (rangeHeader !== undefined) {
+    const parsed = parseRange(rangeHeader, size);
+    if (parsed === null) {
+      res.writeHead(416, headers({ ...base, 'content-range': `bytes */${size}`, 'content-length': 0 }));
+      res.end();
+      return;
+    }
+    status = 206;
+    range = parsed;
+    base['content-range'] = `bytes ${range.start}-${range.end}/${size}`;
   }
-  if (!Number.isSafeInteger(start) || !Number.isSafeInteger(end) || start > end || start >= size) return null;
-  if (end - start + 1 > MAX_RANGE_BYTES) return null;
-  return { start, end };
+  res.writeHead(status, headers({ ...base, 'content-length': size === 0 ? 0 : range.end - range.start + 1 }));
+  if (req.method === 'HEAD' || size === 0) {
+    res.end();
+    return;
+  }
+  createReadStream(file, { start: range.start, end: range.end })
+    .on('error', () => res.destroy())
+    .pipe(res);
 }
 
 /**
- * @param {{ port?: number, root?: string, demoDir?: string }} options
- * @returns {Promise<{ url: string, close: () => Promise<void> }>}
+ * @param {{ port?: number, root?: string, demoDir?: string, key?: string }} options
+ * @returns {Promise<{ url: string, openUrl: string, key: string, cookie: string, close: () => Promise<void> }>}
+ *   `url` the server's address; `openUrl` the address to open the app with (it sets the key);
+ *   `cookie` the Cookie header value a raw HTTP client sends for the demo's data.
  */
-export function serveApp({ port = 0, root = 'dist/renderer', demoDir = 'demo-data' } = {}) {
+export function serveApp({ port = 0, root = 'dist/renderer', demoDir = 'demo-data', key = randomBytes(16).toString('hex') } = {}) {
   const appRoot = resolve(root);
   const demoRoot = resolve(demoDir);
+  let ownPort = port;
   const server = createServer((req, res) => {
-    const url = new URL(req.url ?? '/', 'http://127.0.0.1');
+    const refused = refusal(req, ownPort);
+    if (refused) return refuse(res, refused.status, refused.reason);
+    const target = req.url ?? '/';
+    if (!target.startsWith('/')) return refuse(res, 400, 'expected a path');
+    const query = target.indexOf('?');
+    const segments = pathSegments(query < 0 ? target : target.slice(0, query));
+    if (segments === null) return refuse(res, 400, 'expected a plain path inside the served folder');
+    const search = query < 0 ? '' : target.slice(query);
+    const cookie = keyCookieName(ownPort);
+    if (segments[0] === 'key') {
+      if (segments.length !== 2 || !keyMatches(segments[1], key)) return refuse(res, 403, 'this is not the key of the running server; open the address it printed');
+      res.writeHead(303, headers({ location: `/${search}`, 'set-cookie': `${cookie}=${key}; Path=/; HttpOnly; SameSite=Strict`, 'content-length': 0 }));
+      return res.end();
+    }
     let file;
-    if (url.pathname.startsWith('/demo/')) file = inside(demoRoot, url.pathname.slice('/demo/'.length));
-    else file = inside(appRoot, url.pathname === '/' ? 'index.html' : url.pathname);
-    if (!file || !existsSync(file) || !statSync(file).isFile()) {
-      res.writeHead(404, { 'content-type': 'text/plain' });
-      res.end('not found');
-      return;
+    if (segments[0] === 'demo') {
+      if (!keyMatches(cookieValue(req.headers.cookie, cookie), key)) return refuse(res, 403, "the demo's data needs this launch's key: open the address the server printed");
+      file = fileInside(demoRoot, segments.slice(1));
+    } else {
+      file = fileInside(appRoot, segments.length === 0 ? ['index.html'] : segments);
     }
-    const headers = {
-      'content-type': TYPES[extname(file)] ?? 'application/octet-stream',
-      'cache-control': 'no-store',
-      'accept-ranges': 'bytes',
-      // The app loads nothing from the network: say so to the browser as well.
-      'content-security-policy': "default-src 'self'; img-src 'self' data: blob:; style-src 'self' 'unsafe-inline'; worker-src 'self' blob:; connect-src 'self'",
-    };
-    const size = statSync(file).size;
-    const rangeHeader = req.headers.range;
-    if (rangeHeader !== undefined) {
-      // The Traces view reads raw files in pieces: one byte range per request (RFC 9110 §14).
-      const range = parseRange(rangeHeader, size);
-      if (range === null) {
-        res.writeHead(416, { ...headers, 'content-range': `bytes */${size}` });
-        res.end();
-        return;
-      }
-      res.writeHead(206, { ...headers, 'content-range': `bytes ${range.start}-${range.end}/${size}`, 'content-length': range.end - range.start + 1 });
-      createReadStream(file, { start: range.start, end: range.end }).pipe(res);
-      return;
-    }
-    res.writeHead(200, { ...headers, 'content-length': size });
-    createReadStream(file).pipe(res);
+    if (!file) return refuse(res, 404, 'not found');
+    sendFile(req, res, file);
   });
   return new Promise((resolvePromise, reject) => {
     server.once('error', reject);
     server.listen(port, '127.0.0.1', () => {
-      const { port: actual } = server.address();
+      ownPort = server.address().port;
+      const url = `http://127.0.0.1:${ownPort}/`;
       resolvePromise({
-        url: `http://127.0.0.1:${actual}/`,
-        close: () => new Promise((r) => server.close(() => r())),
+        url,
+        openUrl: `${url}key/${key}/`,
+        key,
+        cookie: `${keyCookieName(ownPort)}=${key}`,
+        close: () =>
+          new Promise((r) => {
+            server.close(() => r());
+            server.closeIdleConnections();
+          }),
       });
     });
   });
 }
-

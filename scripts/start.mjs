@@ -75,7 +75,7 @@ if (electron) {
   process.on('SIGTERM', stop);
   child.on('exit', (code, signal) => process.exit(code ?? (signal ? 0 : 1)));
 } else {
-  if (!flag('--browser')) console.log('electron: the Electron binary is not available here; starting in browser mode');
+  if (!flag('--browser')) console.log('electron: the Electron binary is not installed (`npm run electron:download` fetches it); starting in browser mode');
   await browserMode();
 }
 
@@ -125,7 +125,8 @@ async function browserMode() {
     process.exit(1);
   }
   const server = await listen();
-  const url = `${server.url}?demo=1`;
+  // The address carries this launch's key (scripts/serve.mjs): the demo's data needs it.
+  const url = `${server.openUrl}?demo=1`;
   let browser = null;
   const headless = process.platform === 'linux' && !process.env.DISPLAY && !process.env.WAYLAND_DISPLAY;
   // Chromium refuses to run as root without turning its sandbox off; we do not turn it off.
@@ -145,7 +146,7 @@ async function browserMode() {
   } else {
     console.log(`browser mode: open ${url} in Chromium, Chrome or Edge`);
   }
-  console.log('browser mode: serving on loopback only; press Ctrl-C to stop');
+  console.log('browser mode: serving on loopback only, to this address only (its key changes at every start); press Ctrl-C to stop');
   const stop = async () => {
     if (browser && browser.exitCode === null) browser.kill('SIGTERM');
     // Browsers keep connections open; do not wait on them for long.

@@ -138,7 +138,7 @@ async function benchOurTsne(ds: Dataset, key: string): Promise<void> {
 /**
  * The exact (O(n²) per iteration) t-SNE peers, each in a child process, skipped when the time
  * estimated from a measured run, growing as n² and with the iteration count, passes the budget:
- * - druid.js 0.9.0 TSNE: 41 s at n = 2,000 for 1,000 iterations (../shared/PEERS.md);
+ * - druid.js 0.9.0 TSNE: 41 s at n = 2,000 for 1,000 iterations (an earlier measurement, not this run);
  * - tsne-js 1.0.3 (ndarray-based): 251 s at n = 500, d = 50, 1,000 iterations, measured here
  *   (load average about 4, 2026-12-02).
  */

@@ -3,7 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { writeEdf } from '../../src/core/raw/edf/write';
-import { HAVE_REFERENCE, REFERENCE_EDF } from '../core/raw/reference-edf';
+import { REFERENCE_EDF } from '../core/raw/reference-edf';
 import { duckdb, sqlPath } from '../fixtures/duckdb';
 import { hasStackTrace, runCli } from './run-cli';
 
@@ -38,7 +38,7 @@ describe('gleaner inspect <file>', () => {
     expect(s.annotations).toEqual([{ onset: 1, duration: 2, text: 'walking' }]);
   });
 
-  it.skipIf(!HAVE_REFERENCE)('summarizes the reference file test_generator.edf (../shared/reference/edf; values from ../shared/reference/README.md, "EDF and EDF+")', () => {
+  it('summarizes the reference file test_generator.edf (test/fixtures/edf; values and their sources in SOURCE.md there)', () => {
     const s = JSON.parse(runCli(['inspect', join(REFERENCE_EDF, 'test_generator.edf')]).stdout);
     expect(s).toMatchObject({ format: 'EDF+C', headerBytes: 3328, dataRecords: 600, startDate: '2011-04-04', startTime: '12:57:02' });
     expect(s.signals[0]).toMatchObject({ label: 'squarewave', unit: 'uV', rate: 200, samples: 120000 });

@@ -2,16 +2,16 @@
 // lowered so small files take that path: the table must equal one thread's, its values DuckDB's
 // read_csv (@duckdb/node-api, see package.json), and a problem in the second half must be
 // reported on the file's own row.
-import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { readInput, type ReadInputDeps } from '../../src/cli/read-input';
 import { seededRandom } from '../../src/core/random';
 import { findColumn } from '../../src/core/table/table';
 import { duckdb, sqlPath } from '../fixtures/duckdb';
+import { tempDir } from '../temp';
 
-const dir = mkdtempSync(join(tmpdir(), 'gleaner-in-two-'));
+const dir = tempDir('in-two');
 const ONE: ReadInputDeps = { progress: () => {}, cancelled: () => false, twoThreadsBytes: Infinity, chunkBytes: 1 << 16 };
 const TWO: ReadInputDeps = { ...ONE, twoThreadsBytes: 1 };
 

@@ -1,7 +1,4 @@
 import { spawn, spawnSync } from 'node:child_process';
-import { mkdtempSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
 /** The repository root (this file is test/cli/run-cli.ts). */
@@ -26,9 +23,8 @@ export function startCli(args: string[]) {
   return spawn(process.execPath, [...CLI_ARGS, ...args], { cwd: ROOT, stdio: ['ignore', 'pipe', 'pipe'] });
 }
 
-export function tempDir(prefix: string): string {
-  return mkdtempSync(join(tmpdir(), `gleaner-${prefix}-`));
-}
+/** A fresh temp folder, removed after the test file (test/temp.ts). */
+export { tempDir } from '../temp';
 
 /** True when the text carries a JavaScript stack trace ("    at f (file:1:2)"). */
 export function hasStackTrace(text: string): boolean {

@@ -2,22 +2,22 @@ import { describe, expect, it } from 'vitest';
 import { irisMatrix, irisTable } from './iris';
 
 // The fixture test/fixtures/iris.csv was typed from the R `datasets::iris` (Fisher) version.
-// These checks tie it to the values quoted in ../shared/reference/README.md, section "Datasets"
-// (transcribed here; the test does not read that folder).
+// These checks tie it to that version: its rows 35 and 38 (where the old UCI copy differs) and its
+// class means as R prints them (aggregate(. ~ Species, iris, mean)).
 describe('iris fixture', () => {
   it('has 150 rows, 3 species of 50, in the R/Fisher version', () => {
     const t = irisTable();
     expect(t.nRows).toBe(150);
     const { data, species } = irisMatrix();
     expect(Array.from(new Set(species))).toEqual([0, 1, 2]);
-    // Rows 35 and 38 (1-based) differ between the R/Fisher and the old UCI copy (README "Datasets").
+    // Rows 35 and 38 (1-based) differ between the R/Fisher and the old UCI copy.
     expect(Array.from(data.subarray(34 * 4, 35 * 4))).toEqual([4.9, 3.1, 1.5, 0.2]);
     expect(Array.from(data.subarray(37 * 4, 38 * 4))).toEqual([4.9, 3.6, 1.4, 0.1]);
   });
 
   it('matches the class means of the R/Fisher version', () => {
     const { data, species } = irisMatrix();
-    // README "Datasets": setosa, versicolor, virginica means.
+    // R: aggregate(. ~ Species, iris, mean): setosa, versicolor, virginica means.
     const expected = [
       [5.006, 3.428, 1.462, 0.246],
       [5.936, 2.77, 4.26, 1.326],

@@ -7,7 +7,7 @@ import type { Table } from '../../src/core/table/table';
 /**
  * Fisher's iris data in the R `datasets` version (= scikit-learn >= 0.20), typed into
  * test/fixtures/iris.csv; iris.test.ts checks it against the class means and rows 35 and 38
- * quoted in ../shared/reference/README.md ("Datasets").
+ * of that version (R datasets::iris).
  */
 export function irisTable(): Table {
   const path = fileURLToPath(new URL('../fixtures/iris.csv', import.meta.url));

@@ -13,8 +13,7 @@ const DIR = join(import.meta.dirname, '../../demo-data');
 
 describe('adjustedRand (test helper)', () => {
   it('matches scikit-learn adjusted_rand_score docstring values', () => {
-    // scikit-learn sklearn/metrics/cluster/_supervised.py docstrings, as quoted in
-    // ../shared/reference/README.md ("Clustering agreement"); not read from that folder.
+    // scikit-learn sklearn/metrics/cluster/_supervised.py docstrings (adjusted_rand_score).
     expect(adjustedRand([0, 0, 1, 1], [1, 1, 0, 0])).toBe(1);
     expect(adjustedRand([0, 0, 1, 2], [0, 0, 1, 1])).toBeCloseTo(4 / 7, 12);
     expect(adjustedRand([0, 0, 1, 1], [0, 1, 0, 1])).toBeCloseTo(-0.5, 12);

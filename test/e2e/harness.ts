@@ -16,11 +16,12 @@ interface Served {
   url: string;
   close: () => Promise<void>;
 }
-type ServeApp = (o: { port?: number; root?: string; demoDir?: string }) => Promise<Served>;
+type ServeApp = (o: { port?: number; root?: string; demoDir?: string }) => Promise<Served & { openUrl: string }>;
 
 export interface Harness {
   page: Page;
   context: BrowserContext;
+  /** The address the app is opened with (it carries the server's key for the demo's data). */
   url: string;
   /** A fresh temporary folder for files the test writes. */
   tempDir: string;
@@ -37,28 +38,44 @@ export async function startHarness(): Promise<Harness> {
   // scripts/serve.mjs is plain JavaScript without type declarations: load it by URL.
   const serveModule = pathToFileURL(join(ROOT, 'scripts/serve.mjs')).href;
   const { serveApp } = (await import(serveModule)) as { serveApp: ServeApp };
+  // The browser: /usr/bin/chromium or GLEANER_CHROMIUM (scripts/browser.mjs; npm test installs it when it can).
+  const browserModule = pathToFileURL(join(ROOT, 'scripts/browser.mjs')).href;
+  const { chromiumPath, missingMessage } = (await import(browserModule)) as { chromiumPath: () => string; missingMessage: (p: string, custom: boolean) => string };
+  const executablePath = chromiumPath();
+  if (!existsSync(executablePath)) throw new Error(missingMessage(executablePath, Boolean(process.env.GLEANER_CHROMIUM)));
   const server = await serveApp({ port: 0, root: join(ROOT, 'dist/renderer'), demoDir: join(ROOT, 'demo-data') });
   const tempDir = mkdtempSync(join(tmpdir(), 'gleaner-e2e-'));
-  const context = await chromium.launchPersistentContext(join(tempDir, 'profile'), {
-    executablePath: '/usr/bin/chromium',
-    headless: true,
-    acceptDownloads: true,
-    viewport: { width: 1400, height: 900 },
-    args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
-  });
+  let context: BrowserContext;
+  try {
+    context = await chromium.launchPersistentContext(join(tempDir, 'profile'), {
+      executablePath,
+      headless: true,
+      acceptDownloads: true,
+      viewport: { width: 1400, height: 900 },
+      args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+    });
+  } catch (err) {
+    await server.close();
+    rmSync(tempDir, { recursive: true, force: true });
+    throw err;
+  }
   const page = context.pages()[0] ?? (await context.newPage());
   const pageErrors: string[] = [];
   page.on('pageerror', (err) => pageErrors.push(err.message));
   return {
     page,
     context,
-    url: server.url,
+    url: server.openUrl,
     tempDir,
     pageErrors,
     async close() {
-      await context.close();
-      await server.close();
-      rmSync(tempDir, { recursive: true, force: true });
+      // The profile and downloads go even when closing the browser fails.
+      try {
+        await context.close();
+        await server.close();
+      } finally {
+        rmSync(tempDir, { recursive: true, force: true });
+      }
     },
   };
 }

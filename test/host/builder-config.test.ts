@@ -1,6 +1,6 @@
 // Checks of the packaging configuration (build/electron-builder.yml) and the app icon, without
 // packaging (that downloads Electron). The schema is electron-builder's own: app-builder-lib's
-// scheme.json, as installed with electron-builder 26.
+// scheme.json, as installed with electron-builder 25.
 import { existsSync, readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { describe, expect, it } from 'vitest';

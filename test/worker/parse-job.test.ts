@@ -1,16 +1,16 @@
 import { createHash } from 'node:crypto';
-import { mkdtempSync, readFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { quietContext } from '../../src/core/job';
 import { cellText, findColumn } from '../../src/core/table/table';
 import { jobs } from '../../src/worker/jobs';
 import { duckdb, sqlPath } from '../fixtures/duckdb';
+import { tempDir } from '../temp';
 
 describe('parse job', () => {
   it('reads a Parquet File (Blob) by offset: same table and hash as its bytes, progress to the end', async () => {
-    const dir = mkdtempSync(join(tmpdir(), 'gleaner-parse-job-'));
+    const dir = tempDir('parse-job');
     const path = join(dir, 'w.parquet');
     // Written by DuckDB (@duckdb/node-api 1.5), three row groups.
     await duckdb(`COPY (SELECT i AS window_id, 'S' || (i % 4) AS subject, i * 0.25 AS acc_mean, (i % 9) * 1.5 AS gyro_sd

@@ -78,6 +78,8 @@ function split(state: CurationState, c: number, k: number, parts: Int32Array): C
   if (!(parts instanceof Int32Array) || parts.length !== size) {
     throw new OptionError('parts', parts?.length, `one part index per window of cluster ${c} (${size})`);
   }
+  // More parts than the run has windows cannot be filled (and a damaged k of 2^31 would exhaust memory).
+  if (k > state.labels.length) throw new OptionError('k', k, `at most the ${state.labels.length} windows of the run`);
   const labels = state.labels.slice();
   const base = state.clusters.length;
   let j = 0;

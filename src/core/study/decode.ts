@@ -1,3 +1,5 @@
+import { replay } from '../curation/history';
+import { initialCuration } from '../curation/initial-state';
 import { InputError } from '../errors';
 import { migrateStudy } from './migrate';
 import { readZip } from './zip';
@@ -73,9 +75,19 @@ function checkShape(s: Study, fail: (e: string, f?: string) => never): void {
     if (typeof run?.id !== 'string') fail(`${where} with an id`);
     if (!Number.isInteger(run.input) || run.input < 0 || run.input >= s.inputs.length) fail(`${where}.input to name one of the ${s.inputs.length} inputs`, String(run.input));
     if (!(run.result?.labels instanceof Int32Array)) fail(`${where}.result.labels as an int32 array`);
+    const k = run.result.cluster?.k;
+    if (!Number.isInteger(k) || k < 1 || k > Math.max(1, run.result.labels.length)) fail(`${where}.result.cluster.k from 1 to the ${run.result.labels.length} windows`, String(k));
     if (!Array.isArray(run.curation?.actions)) fail(`${where}.curation.actions as a list`);
     run.curation.undone ??= [];
     run.flags ??= [];
+    if (!Array.isArray(run.curation.undone)) fail(`${where}.curation.undone as a list`);
+    // The recorded actions, then the undone ones as redo would apply them, must fit the run's
+    // clusters and windows: reopening replays them (the app keeps redo working the same way).
+    try {
+      replay(initialCuration(run.result.labels, run.result.cluster?.k), [...run.curation.actions, ...[...run.curation.undone].reverse()]);
+    } catch (err) {
+      fail(`${where}.curation: recorded actions that fit the run's clusters and windows`, err instanceof Error ? err.message : String(err));
+    }
   }
   s.notes ??= '';
   s.view ??= {};

@@ -1,4 +1,5 @@
-import { DataType, makeVector, tableFromIPC, type Table as ArrowTable, type Vector } from 'apache-arrow';
+import { DataType, makeVector, type Table as ArrowTable, type Vector } from 'apache-arrow';
+import { decodeArrowIpc } from './arrow-ipc';
 import { InputError } from '../errors';
 import { quietContext, type JobContext } from '../job';
 import { WholeFileReader } from './whole-file-reader';
@@ -17,7 +18,7 @@ export class ArrowReader extends WholeFileReader {
     if (size === 0) throw new InputError({ file: this.fileName, expected: 'an Arrow IPC file', found: 'an empty file (0 bytes)' });
     let arrow: ArrowTable;
     try {
-      arrow = tableFromIPC(bytes);
+      arrow = decodeArrowIpc(bytes);
     } catch (e) {
       throw new InputError({ file: this.fileName, expected: 'a complete Arrow IPC file (it is damaged or cut short)', found: e instanceof Error ? e.message : String(e) });
     }

@@ -36,6 +36,8 @@ function readPlain(bytes: Uint8Array, offset: number, type: NumericType, count: 
  * Returns the offset after the last run read.
  */
 export function readHybrid(bytes: Uint8Array, offset: number, end: number, bitWidth: number, count: number, out: Uint32Array): number {
+  // A damaged length prefix may point past the page: never read beyond the bytes there are.
+  end = Math.min(end, bytes.length);
   let o = offset, n = 0;
   const byteWidth = (bitWidth + 7) >> 3;
   const mask = bitWidth >= 32 ? 0xffffffff : (1 << bitWidth) - 1;
@@ -48,8 +50,11 @@ export function readHybrid(bytes: Uint8Array, offset: number, end: number, bitWi
       shift += 7;
     } while (b & 0x80);
     if (header & 1) {
-      // Bit-packed: (header >> 1) groups of 8 values, least significant bit first.
-      const values = Math.floor(header / 2) * 8;
+      // Bit-packed: (header >> 1) groups of 8 values, least significant bit first. Only the values
+      // still wanted are decoded (a damaged group count of 2^40 must not be looped over).
+      const groups = Math.floor(header / 2);
+      const runEnd = o + groups * bitWidth;
+      const values = Math.min(groups * 8, count - n);
       let acc = 0, bits = 0;
       for (let i = 0; i < values; i++) {
         while (bits < bitWidth) {
@@ -62,6 +67,7 @@ export function readHybrid(bytes: Uint8Array, offset: number, end: number, bitWi
         bits -= bitWidth;
         if (n < count) out[n++] = v & mask;
       }
+      o = runEnd;
     } else {
       const run = Math.floor(header / 2);
       let v = 0;

@@ -66,9 +66,11 @@ class Cursor {
         const size = this.varint();
         if (size === 0) return;
         const kv = this.byte();
+        // Inside collections a boolean takes a byte of its own (compact protocol), so every entry consumes bytes.
+        const inCollection = (t: number) => (t === 1 || t === 2 ? 3 : t);
         for (let i = 0; i < size; i++) {
-          this.skip(kv >> 4);
-          this.skip(kv & 15);
+          this.skip(inCollection(kv >> 4));
+          this.skip(inCollection(kv & 15));
         }
         return;
       }

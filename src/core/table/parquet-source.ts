@@ -6,6 +6,8 @@ import { decompressLz4, decompressLz4Raw } from 'hyparquet-compressors/src/lz4.j
 import { InputError } from '../errors';
 import { quietContext, type JobContext } from '../job';
 import type { ByteSource } from '../raw/byte-source';
+import { checkFileCounts, checkGroupPages } from './parquet-checks';
+import { checkGroupRuns } from './parquet-levels';
 import { decodeNumericChunk, UnsupportedChunk, type NumericType } from './parquet-numeric';
 import { AUTO_FLOAT32_BYTES, DEFAULT_READ_OPTIONS, type ReadOptions } from './reader.types';
 import { roleFromName } from './roles';
@@ -120,8 +122,14 @@ export async function readParquetSource(source: ByteSource, fileName: string, op
   } catch (e) {
     throw damaged(e);
   }
+  let schema: SchemaTree;
+  try {
+    schema = parquetSchema(metadata);
+    checkFileCounts(metadata, schema);
+  } catch (e) {
+    throw damaged(e);
+  }
   const nRows = Number(metadata.num_rows);
-  const schema = parquetSchema(metadata);
   const narrow = opts.precision === 'float32' || (opts.precision === 'auto' && Math.max(opts.totalBytes, source.size) > AUTO_FLOAT32_BYTES);
   const columns = new Map<string, ValueColumn>();
   for (const node of schema.children) {
@@ -149,8 +157,10 @@ export async function readParquetSource(source: ByteSource, fileName: string, op
       const held = next as Promise<{ start: number; bytes: Uint8Array }>;
       next = g + 1 < groups.length ? fetch(g + 1) : null;
       file.held = await held;
+      checkGroupPages(file.held, group, schema);
       const rest = decodeNumbers(file.held, group, fast, columns, start);
       if (rest.length > 0) {
+        checkGroupRuns(file.held, group, schema, rest, compressors);
         await parquetRead({
           file, metadata, rowStart: start, rowEnd: end, compressors, parsers: PARSERS, columns: rest,
           onChunk: ({ columnName, columnData, rowStart }) => columns.get(columnName)?.set(rowStart, columnData),

@@ -5,8 +5,8 @@ import {
 import { CancelledError } from '../../../src/core/errors';
 import type { JobContext } from '../../../src/core/job';
 
-// Values as quoted in ../shared/reference/README.md ("Hierarchical clustering"), read from the
-// SciPy scipy/cluster/hierarchy/_hierarchy_impl.py docstrings (verified with SciPy 1.17.1).
+// Values read from the SciPy scipy/cluster/hierarchy/_hierarchy_impl.py docstrings (verified with
+// SciPy 1.17.1); sources of the other cases beside them.
 const X12 = Float64Array.from([0, 0, 0, 1, 1, 0, 0, 4, 0, 3, 1, 4, 4, 0, 3, 0, 4, 1, 4, 4, 3, 4, 4, 3]);
 const S2 = Math.SQRT2;
 
@@ -40,7 +40,7 @@ describe('hierarchical(data, n, d, { linkage })', () => {
   for (const linkage of ['single', 'complete', 'average', 'ward'] as const) {
     it(`gives SciPy's ${linkage} merge heights on the 12-point example`, async () => {
       const t = await hierarchical(X12, 12, 2, { linkage });
-      // SciPy linkage(X, '${linkage}') docstring heights (README "Hierarchical clustering").
+      // SciPy linkage(X, '${linkage}') docstring heights.
       SCIPY_HEIGHTS[linkage].forEach((h, i) => expect(t.height[i]).toBeCloseTo(h, 7));
       checkStructure(t);
     });
@@ -48,7 +48,7 @@ describe('hierarchical(data, n, d, { linkage })', () => {
 
   it("gives SciPy's full single-linkage Z on the 12-point example", async () => {
     const t = await hierarchical(X12, 12, 2, { linkage: 'single' });
-    // SciPy single(X) docstring Z, rows [left, right, height, size] (README "Hierarchical clustering").
+    // SciPy single(X) docstring Z, rows [left, right, height, size].
     const Z = [[0, 1, 1, 2], [2, 12, 1, 3], [3, 4, 1, 2], [5, 14, 1, 3], [6, 7, 1, 2], [8, 16, 1, 3],
       [9, 10, 1, 2], [11, 18, 1, 3], [13, 15, 2, 6], [17, 20, 2, 9], [19, 21, 2, 12]];
     const got = Array.from({ length: 11 }, (_, i) => [t.left[i], t.right[i], t.height[i], t.size[i]]);
@@ -87,8 +87,8 @@ describe('hierarchical(data, n, d, { linkage })', () => {
 });
 
 describe('the Wikipedia 5-item matrix', () => {
-  // Wikipedia "UPGMA" / "Complete-linkage clustering" example (README "Hierarchical clustering";
-  // the average heights there are computed with SciPy 1.17).
+  // Wikipedia "UPGMA" / "Complete-linkage clustering" example (the pages show the
+  // first steps; the full merge heights computed with SciPy 1.17).
   // Items a..e; condensed order ab ac ad ae bc bd be cd ce de.
   const D = Float64Array.from([17, 21, 31, 23, 30, 34, 21, 28, 39, 43]);
   const cases: [Linkage, number[]][] = [
@@ -112,7 +112,7 @@ describe('the Wikipedia 5-item matrix', () => {
 
 describe('cutTree(tree, cut)', () => {
   it("gives SciPy's fcluster flat cuts by distance on the 12-point example", async () => {
-    // SciPy fcluster docstring (README "Hierarchical clustering"): single t=0.9 -> 12 clusters,
+    // SciPy fcluster docstring: single t=0.9 -> 12 clusters,
     // t=1 -> {0,1,2},{3,4,5},{6,7,8},{9,10,11}; ward t=1.1 -> 8 clusters, t=3 -> the same 4.
     const four = [[0, 1, 2], [3, 4, 5], [6, 7, 8], [9, 10, 11]];
     const single = await hierarchical(X12, 12, 2, { linkage: 'single' });

@@ -20,7 +20,7 @@ function nearest(centres: Float64Array, k: number, p: number[]): number {
 
 describe('kmeans(data, n, d, options)', () => {
   it('finds the scikit-learn KMeans docstring centres', async () => {
-    // scikit-learn KMeans docstring (README "k-means"): k = 2 -> centres (1, 2) and (10, 2).
+    // scikit-learn KMeans docstring: k = 2 -> centres (1, 2) and (10, 2).
     const X = Float64Array.from([1, 2, 1, 4, 1, 0, 10, 2, 10, 4, 10, 0]);
     const r = await kmeans(X, 6, 2, opts(2, 0));
     const centres = [[r.centres[0], r.centres[1]], [r.centres[2], r.centres[3]]].sort((a, b) => a[0] - b[0]);
@@ -34,7 +34,7 @@ describe('kmeans(data, n, d, options)', () => {
   });
 
   it('reaches the R kmeans optimum on iris with restarts', async () => {
-    // R kmeans(iris[, 1:4], 3) on the R/Fisher iris (README "k-means"): sizes 50/62/38,
+    // R kmeans(iris[, 1:4], 3) on the R/Fisher iris: sizes 50/62/38,
     // total within SS 78.85144, centres as listed.
     const { data, n, d } = irisMatrix();
     const r = await kmeans(data, n, d, opts(3, 7));

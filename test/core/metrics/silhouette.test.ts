@@ -4,7 +4,8 @@ import { irisMatrix } from '../iris';
 import { kmeans } from '../../../src/core/cluster/kmeans';
 import { seededRandom } from '../../../src/core/random';
 
-// Values as quoted in ../shared/reference/README.md ("Cluster quality").
+// Sources beside each case: scikit-learn test_unsupervised.py, Clustering.jl test/silhouette.jl, and one
+// value computed with NumPy 2.4 / SciPy 1.17 on iris.
 describe('silhouette', () => {
   it('matches the scikit-learn per-sample example, a singleton scoring 0', () => {
     // scikit-learn sklearn/metrics/cluster/tests/test_unsupervised.py.
@@ -13,6 +14,7 @@ describe('silhouette', () => {
   });
 
   it('matches the scikit-learn precomputed example (1/6)', () => {
+    // scikit-learn sklearn/metrics/cluster/tests/test_unsupervised.py (metric="precomputed").
     const s = silhouetteFromDistances([0, 1, 2, 1, 0, 1, 2, 1, 0], 3, [0, 0, 1]);
     expect((s[0] + s[1] + s[2]) / 3).toBeCloseTo(1 / 6, 12);
   });
@@ -32,7 +34,8 @@ describe('silhouette', () => {
   });
 
   it('gives the reference value for the iris k-means partition', async () => {
-    // README "Cluster quality": k-means partition of iris (50/62/38): silhouette 0.5528190 (computed).
+    // k-means partition of iris (R/Fisher, sizes 50/62/38): silhouette 0.5528190, computed with
+    // NumPy 2.4 / SciPy 1.17 on that partition.
     const m = irisMatrix();
     const r = await kmeans(m.data, m.n, m.d, { k: 3, restarts: 10, maxIterations: 300, tol: 1e-4, random: seededRandom(7) });
     expect(meanSilhouette(m, r.labels)).toBeCloseTo(0.552819, 6);

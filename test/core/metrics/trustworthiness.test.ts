@@ -8,8 +8,8 @@ const EMBEDDED = Float64Array.from([0, 2, 4, 1, 3]);
 
 describe('trustworthiness', () => {
   it('trustworthiness of the shuffled 1-D example is 0.2', () => {
-    // scikit-learn sklearn/manifold/tests/test_t_sne.py test_trustworthiness (via ../shared/reference/README.md
-    // "Embedding quality"): X = [0..4], embedding [[0],[2],[4],[1],[3]], n_neighbors = 1 -> 0.2.
+    // scikit-learn sklearn/manifold/tests/test_t_sne.py test_trustworthiness:
+    // X = [0..4], embedding [[0],[2],[4],[1],[3]], n_neighbors = 1 -> 0.2.
     expect(trustworthiness(X, 5, 1, EMBEDDED, 1, 1)).toBeCloseTo(0.2, 12);
   });
 

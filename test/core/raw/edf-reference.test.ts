@@ -1,15 +1,15 @@
-// Reads the reference EDF+ files in ../shared/reference/edf (written by pyedflib's test suite, see
-// SOURCE.md there); the expected values are from ../shared/reference/README.md, section "EDF and EDF+".
+// Reads the EDF+ files pyedflib's test suite ships, kept in test/fixtures/edf; SOURCE.md there names
+// the source of each expected value (pyedflib's tests, the EDF and EDF+ specifications, or computed).
 import { describe, expect, it } from 'vitest';
 import { bytesSource } from '../../../src/core/raw/byte-source';
 import { isoFromEpoch } from '../../../src/core/raw/civil-time';
 import { openEdf } from '../../../src/core/raw/edf/read';
-import { HAVE_REFERENCE, referenceBytes } from './reference-edf';
+import { referenceBytes } from './reference-edf';
 
 const open = (name: string) => openEdf(bytesSource(referenceBytes(name)), name);
 
-describe.skipIf(!HAVE_REFERENCE)('openEdf on reference files (../shared/reference/edf)', () => {
-  it('test_generator.edf: header fields as listed in the reference README', async () => {
+describe('openEdf on reference files (test/fixtures/edf)', () => {
+  it('test_generator.edf: header fields (pyedflib test_edfreader.py; EDF/EDF+ header layout)', async () => {
     const edf = await open('test_generator.edf');
     const h = edf.header;
     expect(h.format).toBe('EDF+C');
@@ -31,7 +31,7 @@ describe.skipIf(!HAVE_REFERENCE)('openEdf on reference files (../shared/referenc
     const span = await edf.readSpan(0, 600);
     expect(span.channels).toHaveLength(11);
     for (const c of span.channels) expect(c.samples.length).toBe(120000);
-    // README: digital 3276 -> -1000 + (3276 + 32768) * 2000 / 65535 = 99.99237 (computed).
+    // EDF scaling rule: digital 3276 -> -1000 + (3276 + 32768) * 2000 / 65535 = 99.99237 (computed).
     expect(span.channels[0].samples[0]).toBeCloseTo(99.99237, 4);
     expect(span.channels[0].t0).toBe(0);
   });

@@ -34,7 +34,7 @@ describe('applyRecipe(matrix, context, recipe)', () => {
   });
 
   it('matches scipy.stats.zscore (nan_policy="omit") through a one-step recipe', async () => {
-    // SciPy scipy.stats.zscore docstring, as quoted in ../shared/reference/README.md.
+    // SciPy scipy.stats.zscore docstring (the nan_policy="omit" example).
     const data = Float64Array.from([25.11, 30.1, NaN, 32.02, 43.15]);
     const r = await applyRecipe({ data, n: 5, d: 1, featureNames: ['x'] }, {}, parseRecipe({ version: 1, steps: [{ type: 'zscore' }] }));
     expect(r.data[2]).toBeNaN();

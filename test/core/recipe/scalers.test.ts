@@ -10,8 +10,7 @@ const flat = (rows: number[][]) => Float64Array.from(rows.flat());
 
 describe('robustScaleInPlace(data, n, d)', () => {
   it('matches the scikit-learn RobustScaler docstring example', () => {
-    // scikit-learn sklearn/preprocessing/_data.py RobustScaler docstring, as quoted in
-    // ../shared/reference/README.md ("Scaling and imputation").
+    // scikit-learn sklearn/preprocessing/_data.py RobustScaler docstring.
     const x = flat([[1, -2, 2], [-2, 1, 3], [4, 1, -2]]);
     robustScaleInPlace(x, 3, 3);
     const expected = [[0, -2, 0], [-1, 0, 0.4], [1, 0, -1.6]].flat();
@@ -31,8 +30,7 @@ describe('robustScaleInPlace(data, n, d)', () => {
 
 describe('percentiles and IQR (linear interpolation)', () => {
   it('matches scipy.stats.iqr docstring values, over all values and per column', () => {
-    // scipy.stats.iqr docstring: x = [[10, 7, 4], [3, 2, 1]] -> 4.0; axis=0 -> [3.5, 2.5, 1.5]
-    // (../shared/reference/README.md, "Scaling and imputation").
+    // scipy.stats.iqr docstring: x = [[10, 7, 4], [3, 2, 1]] -> 4.0; axis=0 -> [3.5, 2.5, 1.5].
     const x = flat([[10, 7, 4], [3, 2, 1]]);
     expect(iqrSorted(sortedColumn(x, 6, 1, 0))).toBe(4);
     expect([0, 1, 2].map((j) => iqrSorted(sortedColumn(x, 2, 3, j)))).toEqual([3.5, 2.5, 1.5]);
@@ -49,8 +47,7 @@ describe('percentiles and IQR (linear interpolation)', () => {
 
 describe('imputation', () => {
   it('matches the scikit-learn SimpleImputer(strategy="mean") docstring example', () => {
-    // scikit-learn sklearn/impute/_base.py SimpleImputer docstring, as quoted in
-    // ../shared/reference/README.md: fit [[7,2,3],[4,NaN,6],[10,5,9]], transform
+    // scikit-learn sklearn/impute/_base.py SimpleImputer docstring: fit [[7,2,3],[4,NaN,6],[10,5,9]], transform
     // [[NaN,2,3],[4,NaN,6],[10,NaN,9]] -> [[7,2,3],[4,3.5,6],[10,3.5,9]].
     const fit = flat([[7, 2, 3], [4, NaN, 6], [10, 5, 9]]);
     const stats = columnStatistics(fit, 3, 3, 'mean');

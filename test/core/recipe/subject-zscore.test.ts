@@ -2,8 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { subjectZscore } from '../../../src/core/recipe/subject-zscore';
 
 describe('subjectZscore(data, n, d, subjects)', () => {
-  // scipy.stats.zscore docstring values (ddof 0), as quoted in ../shared/reference/README.md
-  // ("Scaling and imputation"; not read from that folder): subject 7 carries the 10-value example,
+  // scipy.stats.zscore docstring values (ddof 0): subject 7 carries the 10-value example,
   // subject 3 the example with NaN omitted. Rows of the two subjects are interleaved.
   const ten = [0.7972, 0.0767, 0.4383, 0.7866, 0.8091, 0.1954, 0.6307, 0.6599, 0.1065, 0.0508];
   const tenZ = [1.1273, -1.247, -0.0552, 1.0923, 1.1664, -0.8559, 0.5786, 0.6748, -1.1488, -1.3324];

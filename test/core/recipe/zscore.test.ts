@@ -4,8 +4,7 @@ import { zscoreInPlace } from '../../../src/core/recipe/zscore';
 
 describe('zscoreInPlace(data, n, d)', () => {
   it('matches the scipy.stats.zscore docstring example (ddof 0)', () => {
-    // SciPy scipy.stats.zscore docstring, values as quoted in ../shared/reference/README.md
-    // ("Scaling and imputation"); the docstring prints 4 decimals.
+    // SciPy scipy.stats.zscore docstring; the docstring prints 4 decimals.
     const a = Float64Array.from([0.7972, 0.0767, 0.4383, 0.7866, 0.8091, 0.1954, 0.6307, 0.6599, 0.1065, 0.0508]);
     zscoreInPlace(a, 10, 1);
     const expected = [1.1273, -1.247, -0.0552, 1.0923, 1.1664, -0.8559, 0.5786, 0.6748, -1.1488, -1.3324];
@@ -13,7 +12,7 @@ describe('zscoreInPlace(data, n, d)', () => {
   });
 
   it("matches scipy.stats.zscore(nan_policy='omit'), NaN kept", () => {
-    // SciPy scipy.stats.zscore docstring, nan_policy='omit' example (README "Scaling and imputation").
+    // SciPy scipy.stats.zscore docstring, nan_policy='omit' example.
     const a = Float64Array.from([25.11, 30.1, NaN, 32.02, 43.15]);
     zscoreInPlace(a, 5, 1);
     const expected = [-1.13490897, -0.37830299, NaN, -0.08718406, 1.60039602];

@@ -1,6 +1,5 @@
 import { Float64, Int32, Table as ArrowTable, tableToIPC, vectorFromArray } from 'apache-arrow';
-import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { InputError } from '../../../src/core/errors';
@@ -9,8 +8,9 @@ import { createTableReader } from '../../../src/core/table/reader';
 import type { TableFormat } from '../../../src/core/table/reader.types';
 import { cellText, findColumn, type Table } from '../../../src/core/table/table';
 import { duckdb, sqlPath } from '../../fixtures/duckdb';
+import { tempDir } from '../../temp';
 
-const dir = mkdtempSync(join(tmpdir(), 'gleaner-columnar-'));
+const dir = tempDir('columnar');
 const CSV = [
   'window_id,subject,start,acc_mean,gyro_sd,label',
   'w1,S01,2024-03-10T08:30:00Z,0.25,1.5,walk',

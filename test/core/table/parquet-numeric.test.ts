@@ -1,16 +1,16 @@
 // The typed-array decoder of numeric Parquet columns (src/core/table/parquet-numeric.ts), checked
 // against DuckDB (@duckdb/node-api 1.5): files it writes (nullable columns, dictionary pages, several
 // row groups, each codec, data page v2) must read back as the values DuckDB itself reads.
-import { mkdtempSync, readFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { readHybrid } from '../../../src/core/table/parquet-numeric';
 import { createTableReader } from '../../../src/core/table/reader';
 import { findColumn, type Table } from '../../../src/core/table/table';
 import { duckdb, sqlPath } from '../../fixtures/duckdb';
+import { tempDir } from '../../temp';
 
-const dir = mkdtempSync(join(tmpdir(), 'gleaner-parquet-numeric-'));
+const dir = tempDir('parquet-numeric');
 const N = 5000;
 const COLUMNS = ['d', 'f', 'i', 'b', 'few', 'req'];
 // Nulls every 7th/11th row, a FLOAT, INTEGER and BIGINT, a low-cardinality DOUBLE (dictionary pages).

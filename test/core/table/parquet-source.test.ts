@@ -1,5 +1,4 @@
-import { mkdtempSync, readFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { InputError } from '../../../src/core/errors';
@@ -7,8 +6,9 @@ import { bytesSource, countingSource, type ByteSource } from '../../../src/core/
 import { createTableReader, readTableSource } from '../../../src/core/table/reader';
 import { cellText, findColumn, type Table } from '../../../src/core/table/table';
 import { duckdb, sqlPath } from '../../fixtures/duckdb';
+import { tempDir } from '../../temp';
 
-const dir = mkdtempSync(join(tmpdir(), 'gleaner-parquet-source-'));
+const dir = tempDir('parquet-source');
 const path = join(dir, 'groups.parquet');
 const ROWS = 60_000;
 const GROUP = 10_000;

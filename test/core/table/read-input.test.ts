@@ -1,13 +1,13 @@
 // Node-side reading (src/cli/read-input.ts): files streamed in chunks and partitioned Parquet folders.
-import { mkdtempSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { readInput } from '../../../src/cli/read-input';
 import { cellText, findColumn, type Table } from '../../../src/core/table/table';
 import { duckdb, sqlPath } from '../../fixtures/duckdb';
+import { tempDir } from '../../temp';
 
-const dir = mkdtempSync(join(tmpdir(), 'gleaner-read-input-'));
+const dir = tempDir('read-input');
 const deps = { progress: () => {}, cancelled: () => false };
 const text = (t: Table, name: string) => {
   const c = findColumn(t, name);

@@ -12,8 +12,8 @@ function neighbourSquares(n: number, d: number, k: number, seed: number) {
 
 describe('conditionalProbabilities', () => {
   it('each row has exp(entropy) = perplexity to 3 decimals', () => {
-    // scikit-learn sklearn/manifold/tests/test_t_sne.py test_binary_search / test_binary_search_neighbors
-    // (via ../shared/reference/README.md "Embedding quality"): 50 points from randn(50, 2), perplexity 25,
+    // scikit-learn sklearn/manifold/tests/test_t_sne.py test_binary_search / test_binary_search_neighbors:
+    // 50 points from randn(50, 2), perplexity 25,
     // exp of each row's entropy equals the perplexity to 3 decimals; neighbours k = 3 · perplexity + 1 here.
     const n = 200, k = 76, perplexity = 25;
     const { sq } = neighbourSquares(n, 2, k, 0);

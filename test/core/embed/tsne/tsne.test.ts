@@ -23,7 +23,7 @@ function blobs(n: number, d: number, k: number, seed: number) {
 
 describe('t-SNE options', () => {
   it('defaults follow scikit-learn and openTSNE; learning rate auto = max(n / exaggeration / 4, 50)', () => {
-    // scikit-learn TSNE defaults (via ../shared/reference/README.md "Embedding quality"): perplexity 30,
+    // scikit-learn TSNE defaults (sklearn/manifold/_t_sne.py): perplexity 30,
     // early exaggeration 12, learning rate "auto" = max(N / 12 / 4, 50), angle 0.5. Iterations: openTSNE's
     // defaults, 250 exaggerated + 500 (from memory); scikit-learn runs 1000 in all.
     expect(TSNE_DEFAULTS).toMatchObject({ perplexity: 30, earlyExaggeration: 12, iterations: 750, theta: 0.5, learningRate: 'auto', exaggerationIterations: 250 });

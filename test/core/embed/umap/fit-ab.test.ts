@@ -3,8 +3,7 @@ import { fitAB } from '../../../../src/core/embed/umap/fit-ab';
 
 describe('fitAB(spread, minDist)', () => {
   it('matches the reference curve parameters for spread 1, min_dist 0.1', () => {
-    // Source: lmcinnes/umap umap/layouts.py, a = 1.576943460405378, b = 0.8950608781227859, as quoted in
-    // ../shared/reference/README.md ("Embedding quality"). That value comes out of SciPy's curve_fit
+    // Source: lmcinnes/umap umap/layouts.py, a = 1.576943460405378, b = 0.8950608781227859. That value comes out of SciPy's curve_fit
     // (Levenberg–Marquardt, relative tolerances 1.49e-8 on the parameters and on the cost); a
     // different solver stops at a slightly different point of the same flat optimum, so we check to
     // 1e-4, well inside the 1e-3 that matters for the layout and well outside the solvers' stopping noise.

@@ -13,8 +13,8 @@ async function irisMap(seed: number, init: 'spectral' | 'pca' = 'spectral'): Pro
 
 describe('UMAP on iris', () => {
   it('reaches trustworthiness(k = 10) ≥ 0.97 with n_neighbors 10, min_dist 0.01', async () => {
-    // Source: lmcinnes/umap umap/tests (iris, n_neighbors 10, min_dist 0.01, trustworthiness ≥ 0.97),
-    // quoted in ../shared/reference/README.md ("Embedding quality"); iris is the R/Fisher version.
+    // Source: lmcinnes/umap umap/tests (iris, n_neighbors 10, min_dist 0.01, trustworthiness ≥ 0.97);
+    // iris is the R/Fisher version.
     for (const init of ['spectral', 'pca'] as const) {
       const coords = await irisMap(42, init);
       expect(coords.length).toBe(300);
@@ -64,7 +64,7 @@ describe('UMAP on iris', () => {
 
 describe('UMAP options', () => {
   it('defaults as UMAP does: 15 neighbours, min_dist 0.1, spread 1, 500 epochs up to 10k windows, else 200', () => {
-    // Defaults: lmcinnes/umap (n_neighbors 15, min_dist 0.1; ../shared/reference/README.md); the epoch
+    // Defaults: lmcinnes/umap (n_neighbors 15, min_dist 0.1, umap/umap_.py); the epoch
     // rule (500 for ≤ 10,000 samples, else 200) from the same implementation's docs (from memory).
     const o = new Umap(iris.data, iris.n, iris.d).options;
     expect(o).toMatchObject({ neighbors: 15, minDist: 0.1, spread: 1, metric: 'euclidean', epochs: 500, negativeSampleRate: 5, learningRate: 1, init: 'spectral' });
