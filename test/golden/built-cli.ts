@@ -4,15 +4,15 @@
  * entries as scripts/build-cli.mjs (main, thread-entry, csv-part-thread), chunks beside them.
  */
 import { spawn } from 'node:child_process';
-import { mkdtempSync } from 'node:fs';
-import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { build } from 'esbuild';
+import { tempDir } from '../temp';
 
 const ROOT = resolve(import.meta.dirname, '../..');
 
 export async function buildCliBundle(): Promise<string> {
-  const outdir = mkdtempSync(join(tmpdir(), 'gleaner-golden-cli-'));
+  // Removed after the test file, like every folder made with tempDir.
+  const outdir = tempDir('golden-cli');
   await build({
     absWorkingDir: ROOT,
     entryPoints: { main: 'src/cli/main.ts', 'thread-entry': 'src/cli/thread-entry.ts', 'csv-part-thread': 'src/cli/csv-part-thread.ts' },
