@@ -1,5 +1,7 @@
 // `npm run bench [-- <suite>] [-- --quick]`: runs one suite (default "pipeline") of this project
 // beside peer libraries on the same seeded data, in one process, and prints a side-by-side table.
+import { resolve } from 'node:path';
+import { pathToFileURL } from 'node:url';
 import { stopMeasuring } from './measure';
 
 const SUITES: Record<string, () => Promise<{ run(quick: boolean): Promise<void> }>> = {
@@ -26,3 +28,7 @@ for (const name of chosen) {
   await (await load()).run(quick);
 }
 await stopMeasuring();
+// BENCHMARKS.md is generated from the rows the suites appended (scripts/benchmarks-md.mjs).
+const root = resolve(import.meta.dirname, '..');
+const { writeBenchmarks } = (await import(pathToFileURL(resolve(root, 'scripts/benchmarks-md.mjs')).href)) as { writeBenchmarks: (root: string) => string };
+console.log(`wrote ${writeBenchmarks(root)}`);
