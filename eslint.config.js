@@ -1,5 +1,6 @@
-// Lint, including the import-layering rule: each folder says where its code runs and what it
-// may import (see DEVELOPERS.md, "Layers").
+// Lint, including what each folder may import from packages (Node built-ins, electron) and the
+// core's forbidden globals. Which of our own folders may import which is an allow list in
+// test/lint/layers.test.ts (see DEVELOPERS.md, "Layers").
 import js from '@eslint/js';
 import svelte from 'eslint-plugin-svelte';
 import globals from 'globals';
@@ -79,7 +80,14 @@ export default tseslint.config(
   },
   {
     files: ['src/cli/**', 'demo-data/**', 'bench/**', 'scripts/**'],
+    ignores: ['bench/pages/**'],
     rules: layer([noElectron, noApp, noHost, noElectronDir]),
+  },
+  // The browser bench suites' pages: built by Vite, run in Chromium, drawing with the app's code.
+  {
+    files: ['bench/pages/**'],
+    languageOptions: { globals: { ...globals.browser } },
+    rules: layer([noElectron, noNode, noCli, noHost, noElectronDir]),
   },
   // Electron main and preload.
   {

@@ -12,7 +12,7 @@ export const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '..');
 type ServeApp = (o: { port?: number; root?: string; demoDir?: string }) => Promise<{ url: string; openUrl: string; close: () => Promise<void> }>;
 
 export interface BenchPageOptions {
-  /** Entry module, relative to the repository (e.g. src/app/map/bench-page.ts). */
+  /** Entry module, relative to the repository (e.g. bench/pages/map-page.ts). */
   entry: string;
   /** Short name: the bundle's file name and the page title. */
   name: string;

@@ -8,7 +8,7 @@ import { ROOT, withBenchPage } from '../browser-page';
 
 const BUDGET_MS = 50;
 
-/** One result row of the page's `window.__mapBench` (src/app/map/bench-page.ts; bench may not import the app). */
+/** One result row of the page's `window.__mapBench` (bench/pages/map-page.ts). */
 interface MapBenchRow {
   points: number;
   operation: 'pan' | 'recolour';
@@ -26,7 +26,7 @@ declare global {
 
 export async function run(quick: boolean): Promise<void> {
   const rows: MapBenchRow[] = [];
-  const { browser: version } = await withBenchPage({ entry: 'src/app/map/bench-page.ts', name: 'map', viewport: { width: 1300, height: 820 } }, async (page) => {
+  const { browser: version } = await withBenchPage({ entry: 'bench/pages/map-page.ts', name: 'map', viewport: { width: 1300, height: 820 } }, async (page) => {
     await page.waitForFunction(() => typeof window.__mapBench === 'function');
     const runs = quick ? 7 : 21;
     for (const n of quick ? [200_000] : [200_000, 1_000_000]) {

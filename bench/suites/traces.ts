@@ -9,7 +9,7 @@ import { ROOT, withBenchPage } from '../browser-page';
 /** One frame at 60 Hz. */
 const BUDGET_MS = 16;
 
-/** One result row of the page's `window.__tracesBench` (src/app/views/traces/bench-page.ts; bench may not import the app). */
+/** One result row of the page's `window.__tracesBench` (bench/pages/traces-page.ts). */
 interface TracesBenchRow {
   operation: 'hover' | 'resize';
   traces: number;
@@ -28,7 +28,7 @@ declare global {
 }
 
 export async function run(quick: boolean): Promise<void> {
-  const { result: rows } = await withBenchPage({ entry: 'src/app/views/traces/bench-page.ts', name: 'traces', viewport: { width: 1300, height: 900 } }, async (page) => {
+  const { result: rows } = await withBenchPage({ entry: 'bench/pages/traces-page.ts', name: 'traces', viewport: { width: 1300, height: 900 } }, async (page) => {
     await page.waitForFunction(() => typeof window.__tracesBench === 'function');
     const runs = quick ? 9 : 31;
     const rows = await page.evaluate((runs) => window.__tracesBench!(runs), runs);

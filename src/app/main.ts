@@ -1,7 +1,7 @@
 import { mount } from 'svelte';
 import { pickHost } from '../host';
 import App from './App.svelte';
-import { installTestHook } from './lib/test-hook';
+import { installTestHook } from './test-hook';
 import { AppState } from './state/app.svelte';
 import './theme.css';
 

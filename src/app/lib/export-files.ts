@@ -8,7 +8,7 @@ import { CAUTIONS } from '../../core/cautions';
 import { studyExports } from '../../core/export/study-exports';
 import { studyReportHtml, type ReportCluster, type ReportFigure } from '../../core/export/study-report';
 import type { Study } from '../../core/study/study.types';
-import type { ViewFigure } from '../state/figures';
+import type { ViewFigure } from './figures';
 import { mapPng, mapSvg, type MapFigureInput } from './map-figure';
 import { svgToPng } from './svg-png';
 

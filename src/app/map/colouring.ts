@@ -2,8 +2,10 @@ import type { Roles } from '../../core/table/roles.types';
 import type { Column, Table } from '../../core/table/table';
 import { categoriesOf, columnWithRole } from '../lib/columns';
 import { CATEGORY_COLOURS, MISSING_COLOUR, hexOf, viridis } from '../lib/palette';
-import type { ColourBy } from '../state/map.svelte';
 import { packHex, packRGBA } from './raster';
+
+/** What the Map's points are coloured by. */
+export type ColourBy = 'cluster' | 'subject' | 'time' | `label:${string}` | `metadata:${string}` | `feature:${string}`;
 
 export interface CategoryLegend {
   kind: 'categories';

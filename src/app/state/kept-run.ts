@@ -1,5 +1,5 @@
 import type { Run } from '../../core/run/run.types';
-import { recipeText } from '../views/runs/recipe-text';
+import { recipeText } from '../lib/recipe-text';
 
 /** One run kept in the study: its name, what it was run with and its result. */
 export interface KeptRun {

@@ -1,7 +1,9 @@
 import type { MapView } from '../map/view';
 
 /** How the Map colours windows: by cluster, subject, start time, or a label, metadata or feature column by name. */
-export type ColourBy = 'cluster' | 'subject' | 'time' | `label:${string}` | `metadata:${string}` | `feature:${string}`;
+import type { ColourBy } from '../map/colouring';
+
+export type { ColourBy };
 export type MapTool = 'pan' | 'box' | 'lasso';
 
 /** What the Map shows and how: colouring, the active tool, and what was last drawn. */

@@ -4,8 +4,8 @@ import type { Column } from '../../../src/core/table/table';
 import { distributionPaths, cellAt, heatLayout, splitHistogram, zColour } from '../../../src/app/views/fingerprints/heat-map';
 import { mixBars, segmentMask, selectedByValue } from '../../../src/app/views/mix/mix-bars';
 import { compareResults, rowShares } from '../../../src/app/views/runs/compare';
-import { subjectScaledRecipe } from '../../../src/app/views/runs/recipe-text';
-import { resultRows, tableLabels } from '../../../src/app/views/runs/run-rows';
+import { subjectScaledRecipe } from '../../../src/app/lib/recipe-text';
+import { resultRows, tableLabels } from '../../../src/app/lib/run-rows';
 import { boutAt, buildStrips, panBy, windowAt, zoomAt } from '../../../src/app/views/timeline/strips';
 
 const subjects = (codes: number[], names: string[]): Column => ({ kind: 'categorical', name: 'subject', codes: Int32Array.from(codes), dictionary: names });

@@ -1,6 +1,6 @@
 import type { AnalysisResult } from '../../../core/analysis.types';
 import { compareRuns, type RunComparison } from '../../../core/composition/run-comparison';
-import { tableLabels } from './run-rows';
+import { tableLabels } from '../../lib/run-rows';
 
 /** Two runs compared on the windows both of them analysed. */
 export function compareResults(a: Pick<AnalysisResult, 'labels' | 'windows'>, b: Pick<AnalysisResult, 'labels' | 'windows'>, nRows: number): RunComparison {

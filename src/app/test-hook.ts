@@ -1,6 +1,6 @@
-import { toScreen } from '../map/view';
-import type { AppState } from '../state/app.svelte';
-import type { DrawnFigures } from '../state/runs.svelte';
+import { toScreen } from './map/view';
+import type { AppState } from './state/app.svelte';
+import type { DrawnFigures } from './state/runs.svelte';
 
 /**
  * A small read-only view of the app for the end-to-end tests, installed as `window.__gleaner`.

@@ -1,4 +1,4 @@
-import type { Recipe, RecipeStep } from '../../../core/recipe/recipe.types';
+import type { Recipe, RecipeStep } from '../../core/recipe/recipe.types';
 
 /** The per-subject variant of a recipe: every scaling step becomes a z-score within each subject. */
 export function subjectScaledRecipe(recipe: Recipe | undefined): Recipe {

@@ -1,4 +1,4 @@
-import type { AnalysisResult } from '../../../core/analysis.types';
+import type { AnalysisResult } from '../../core/analysis.types';
 
 /** Table row of each analysed window (the identity when the recipe kept every window). */
 export function resultRows(result: Pick<AnalysisResult, 'labels' | 'windows'>): Int32Array {

@@ -1,5 +1,5 @@
 import { getContext, setContext } from 'svelte';
-import type { AppState } from '../state/app.svelte';
+import type { AppState } from './app.svelte';
 
 const KEY = Symbol('gleaner-app');
 

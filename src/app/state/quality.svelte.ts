@@ -1,11 +1,11 @@
-import type { DataQuality } from '../../../core/quality';
-import type { Roles } from '../../../core/table/roles.types';
-import type { Table } from '../../../core/table/table';
-import type { RunningJob } from '../../../worker/client';
-import { NewestJob } from '../../../worker/newest-job';
-import type { QualityJob } from '../../../worker/jobs';
-import { describeError, isCancelled } from '../../lib/errors';
-import { matrixKey, recipeInput } from '../../state/recipe.svelte';
+import type { DataQuality } from '../../core/quality';
+import type { Roles } from '../../core/table/roles.types';
+import type { Table } from '../../core/table/table';
+import type { RunningJob } from '../../worker/client';
+import { NewestJob } from '../../worker/newest-job';
+import type { QualityJob } from '../../worker/jobs';
+import { describeError, isCancelled } from '../lib/errors';
+import { matrixKey, recipeInput } from './recipe.svelte';
 
 type RunJob = (payload: QualityJob) => RunningJob<DataQuality>;
 

@@ -3,10 +3,10 @@
  * in a browser and times redraws after a pan and after a recolour. Built on its own by the bench
  * suite (never part of the app); it installs `window.__mapBench`.
  */
-import { normal, seededRandom } from '../../core/random';
-import { categoryColouring, scaleColouring, type Colouring } from './colouring';
-import { MapRenderer } from './renderer';
-import { fitView, panBy } from './view';
+import { normal, seededRandom } from '../../src/core/random';
+import { categoryColouring, scaleColouring, type Colouring } from '../../src/app/map/colouring';
+import { MapRenderer } from '../../src/app/map/renderer';
+import { fitView, panBy } from '../../src/app/map/view';
 
 export interface MapBenchRow {
   points: number;

@@ -4,11 +4,11 @@
  * redraws after a hover change and after a resize, as the view's effect does them. Built on its own
  * by the bench suite (never part of the app); it installs `window.__tracesBench`.
  */
-import { normal, seededRandom } from '../../../core/random';
-import { categoryColour } from '../../lib/palette';
-import { drawMultiples } from './draw';
-import { layoutMultiples, yRanges } from './layout';
-import type { Trace } from './reader';
+import { normal, seededRandom } from '../../src/core/random';
+import { categoryColour } from '../../src/app/lib/palette';
+import { drawMultiples } from '../../src/app/views/traces/draw';
+import { layoutMultiples, yRanges } from '../../src/app/views/traces/layout';
+import type { Trace } from '../../src/app/views/traces/reader';
 
 export interface TracesBenchRow {
   operation: 'hover' | 'resize';
