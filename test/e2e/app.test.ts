@@ -186,8 +186,11 @@ describe('browser mode, end to end', () => {
   it('cancels a long run and stays responsive, keeping the previous map', async () => {
     const { page } = h;
     // Start-up with ?demo=1 loads the demo study and runs it with the default parameters.
+    h.consoleErrors.length = 0;
     await page.goto(`${h.url}?demo=1`);
     await waitForRuns(page, 1);
+    // Nothing failed to load on the way (the page's icon included) and nothing was logged as an error.
+    expect(h.consoleErrors).toEqual([]);
     expect((await hookState(page)).clustersDrawn).toBe(Number(await page.getByLabel('Clusters (k)').inputValue()));
     // Many restarts make the run long enough to cancel.
     await page.getByLabel('Restarts').fill('1000');

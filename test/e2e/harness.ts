@@ -27,6 +27,8 @@ export interface Harness {
   tempDir: string;
   /** Uncaught page errors seen so far (a working app has none). */
   pageErrors: string[];
+  /** Console errors seen so far (a failed load of any resource shows here too). */
+  consoleErrors: string[];
   close(): Promise<void>;
 }
 
@@ -62,12 +64,17 @@ export async function startHarness(): Promise<Harness> {
   const page = context.pages()[0] ?? (await context.newPage());
   const pageErrors: string[] = [];
   page.on('pageerror', (err) => pageErrors.push(err.message));
+  const consoleErrors: string[] = [];
+  page.on('console', (message) => {
+    if (message.type() === 'error') consoleErrors.push(`${message.text()} (${message.location().url})`);
+  });
   return {
     page,
     context,
     url: server.openUrl,
     tempDir,
     pageErrors,
+    consoleErrors,
     async close() {
       // The profile and downloads go even when closing the browser fails.
       try {
@@ -89,7 +96,7 @@ export async function openThroughChooser(page: Page, path: string): Promise<void
   await chooser.setFiles(path);
 }
 
-/** The test hook's values (see src/app/lib/test-hook.ts). */
+/** The test hook's values (see src/app/test-hook.ts). */
 export interface HookState {
   pointsDrawn: number;
   clustersDrawn: number;
