@@ -44,7 +44,7 @@ export const ANALYZE: CommandSpec = {
   named: false,
   flags: [
     OUT, P.k, P.seed, P.restarts, I.compose, PROGRESS, I.scale, I.impute, I.subject, I.recipe, I.events,
-    P.embed, P.perplexity, P.iterations, P.neighbors, P.minDist, P.metric, P.sampleAbove, P.cluster, P.cutHeight, P.space,
+    P.embed, P.perplexity, P.iterations, P.neighbors, P.minDist, P.metric, P.sampleAbove, P.cluster, P.cutHeight, P.minClusterSize, P.minSamples, P.space,
   ].map((spec) => ({ spec })),
 };
 
@@ -54,7 +54,7 @@ export const USAGE = `Usage: gleaner analyze <windows.csv> --out <dir> [options]
        gleaner inspect <file>   (JSON summary of a windows table or a raw EDF/CSV signal file)
 
 Loads a featurized windows table, scales the features, makes a map of them (PCA, t-SNE or UMAP)
-and clusters them (k-means or a tree). Writes <dir>/windows.csv (id, subject, start, end, x, y, cluster, confidence) and
+and clusters them (k-means, a tree or HDBSCAN). Writes <dir>/windows.csv (id, subject, start, end, x, y, cluster, confidence) and
 <dir>/summary.json (input hash, recipe, algorithms, seed, metrics, subject mix per cluster).
 
 Options:

@@ -25,13 +25,20 @@ export function pipelineValues(parsed: ParsedCommand): PipelineValues {
     metric: value(parsed, P.metric),
     cluster: P.cluster.default,
     space: P.space.default,
+    minClusterSize: value(parsed, P.minClusterSize),
   };
   if (texts.has(P.sampleAbove.flag)) out.sampleAbove = value(parsed, P.sampleAbove);
   out.cluster = value(parsed, P.cluster);
-  const tree = out.cluster !== 'kmeans';
+  const density = out.cluster === 'hdbscan';
+  const tree = out.cluster !== 'kmeans' && !density;
   only(parsed, [P.cutHeight], tree, '--cluster ward, average, complete or single');
+  only(parsed, [P.minClusterSize, P.minSamples], density, '--cluster hdbscan');
+  if (texts.has(P.minSamples.flag)) out.minSamples = value(parsed, P.minSamples);
   const restarts = texts.get(P.restarts.flag);
   if (tree && restarts !== undefined) throw new OptionError('--restarts', restarts, 'no --restarts with a tree (they apply to --cluster kmeans)');
+  if (density && restarts !== undefined) throw new OptionError('--restarts', restarts, 'no --restarts with hdbscan (they apply to --cluster kmeans)');
+  const k = texts.get(P.k.flag);
+  if (density && k !== undefined) throw new OptionError('--k', k, 'no --k with hdbscan (it finds the number of clusters itself)');
   const cut = texts.get(P.cutHeight.flag);
   if (cut !== undefined) {
     if (texts.has(P.k.flag)) throw new OptionError('--cut-height', cut, 'either --k or --cut-height, not both');

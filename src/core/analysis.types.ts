@@ -57,7 +57,8 @@ export type EmbedChoice =
 export type ClusterChoice =
   | { method: 'kmeans'; k: number; restarts: number; maxIterations: number }
   | { method: Linkage; k: number; cutHeight?: undefined }
-  | { method: Linkage; cutHeight: number; k?: undefined };
+  | { method: Linkage; cutHeight: number; k?: undefined }
+  | { method: 'hdbscan'; minClusterSize: number; minSamples?: number; k?: undefined; cutHeight?: undefined };
 
 /** Map quality, measured against the scaled features on a seeded sample (k = 10). */
 export interface MapQuality {
@@ -146,6 +147,24 @@ export type ClusterRecord =
     cutHeight?: number;
     /** 'two-stage': micro-clusters first (large studies); the tree's leaves are micro-clusters. */
     path: 'exact' | 'two-stage';
+    space: ClusterSpace;
+  }
+  | {
+    method: 'hdbscan';
+    minClusterSize: number;
+    minSamples: number;
+    /** Clusters in the labels: the dense clusters found, plus one for noise when there is any. */
+    k: number;
+    /** Dense clusters found (numbered 0.. by size, largest first). */
+    clusters: number;
+    /** Windows in no dense cluster; they form the last cluster, set aside from the start. */
+    noise: number;
+    /** Index of the noise cluster (k − 1), or null when every window is in a dense cluster. */
+    noiseCluster: number | null;
+    /** Each dense cluster's stability (its excess of mass, in 1/distance × windows). */
+    stability: number[];
+    /** Principal axes the features were projected onto first; null when used as they are. */
+    preReduced: number | null;
     space: ClusterSpace;
   };
 

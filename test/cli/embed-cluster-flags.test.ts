@@ -77,6 +77,26 @@ describe('gleaner analyze: embedding and clustering flags', () => {
     expect(new Set(cut.rows.slice(1).map((r) => r[6])).size).toBe(cut.summary.cluster.k);
   });
 
+  it('--cluster hdbscan --min-cluster-size: dense clusters by size, noise last with a noise column, the record in summary.json', () => {
+    const { summary, rows } = run(['--cluster', 'hdbscan', '--min-cluster-size', '10']);
+    const c = summary.cluster as { method: string; k: number; clusters: number; noise: number; noiseCluster: number | null; stability: number[]; minSamples: number };
+    expect(c.method).toBe('hdbscan');
+    expect(c.minSamples).toBe(10);
+    expect(rows[0]).toEqual(['id', 'subject', 'start', 'end', 'x', 'y', 'cluster', 'confidence', 'noise']);
+    const body = rows.slice(1);
+    const noise = body.filter((r) => r[8] === '1');
+    expect(noise).toHaveLength(c.noise);
+    expect(c.noise).toBeGreaterThan(0);
+    expect(c.noiseCluster).toBe(c.clusters);
+    expect(c.k).toBe(c.clusters + 1);
+    expect(noise.every((r) => Number(r[6]) === c.noiseCluster && Number(r[7]) === 0)).toBe(true);
+    // Dense clusters are numbered by size, largest first; each has a positive stability.
+    const sizes = Array.from({ length: c.clusters }, (_, j) => body.filter((r) => Number(r[6]) === j).length);
+    expect(sizes.every((s, j) => s >= 10 && (j === 0 || s <= sizes[j - 1]))).toBe(true);
+    expect(c.stability).toHaveLength(c.clusters);
+    expect(c.stability.every((s) => s > 0)).toBe(true);
+  });
+
   it.each([
     [['--embed', 'lle'], /invalid --embed: "lle" \(expected one of pca, tsne, umap\)/],
     [['--perplexity', '30'], /no --perplexity without --embed tsne/],
@@ -84,7 +104,11 @@ describe('gleaner analyze: embedding and clustering flags', () => {
     [['--embed', 'umap', '--min-dist', '-1'], /invalid --min-dist/],
     [['--embed', 'umap', '--metric', 'manhattan'], /expected one of euclidean, cosine/],
     [['--embed', 'tsne', '--sample-above', '10'], /invalid --sample-above: "10" \(expected an integer >= 100\)/],
-    [['--cluster', 'centroid'], /expected one of kmeans, ward, average, complete, single/],
+    [['--cluster', 'centroid'], /expected one of kmeans, ward, average, complete, single, hdbscan/],
+    [['--min-cluster-size', '5'], /no --min-cluster-size without --cluster hdbscan/],
+    [['--cluster', 'hdbscan', '--min-cluster-size', '1'], /invalid --min-cluster-size: "1" \(expected an integer >= 2\)/],
+    [['--cluster', 'hdbscan', '--k', '4'], /no --k with hdbscan/],
+    [['--cluster', 'hdbscan', '--restarts', '4'], /no --restarts with hdbscan/],
     [['--cut-height', '2'], /no --cut-height without --cluster/],
     [['--cluster', 'ward', '--k', '3', '--cut-height', '2'], /either --k or --cut-height/],
     [['--cluster', 'ward', '--restarts', '3'], /no --restarts with a tree/],

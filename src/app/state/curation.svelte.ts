@@ -57,7 +57,7 @@ export class Curation {
     if (h) return h;
     let b = this.blank.get(run);
     if (!b) {
-      b = createHistory(initialCuration(run.result.labels, run.result.cluster.k));
+      b = createHistory(initialCuration(run.result.labels, run.result.cluster.k, run.result.cluster));
       this.blank.set(run, b);
     }
     return b;
@@ -171,7 +171,7 @@ export class Curation {
 
   /** Rebuilds a run's history from a study file: the actions done, then those undone (redo still works). */
   restore(run: Run, rec: RecordedCuration): void {
-    let h = createHistory(initialCuration(run.result.labels, run.result.cluster.k));
+    let h = createHistory(initialCuration(run.result.labels, run.result.cluster.k, run.result.cluster));
     for (const a of rec.actions) h = record(h, a);
     // `undone` lists the most recently undone last: redo replays it from the end.
     for (let i = rec.undone.length - 1; i >= 0; i--) h = record(h, rec.undone[i]);

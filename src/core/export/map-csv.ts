@@ -9,13 +9,15 @@ export const MAP_CSV_HEADER = ['id', 'subject', 'start', 'end', 'x', 'y', 'clust
 /**
  * The CLI's per-window table: identity columns, map coordinates, cluster index (0-based) and
  * confidence, then `placed` (1 = placed from its sampled neighbours, 0 = embedded) only when the
- * run sampled. Numbers are formatted deterministically, so the same run gives the same bytes.
+ * run sampled, and `noise` (1 = in no dense cluster: the set-aside last cluster) only for HDBSCAN
+ * runs. Numbers are formatted deterministically, so the same run gives the same bytes.
  */
 export function mapCsv(args: { table: Table; roles: Roles; result: AnalysisResult }): string {
   const { table, roles, result } = args;
   const w = windowColumns(table, roles);
   const rows: (string | number)[][] = new Array(table.nRows);
   const placed = result.placed;
+  const noise = result.cluster.method === 'hdbscan' ? result.cluster.noiseCluster ?? -1 : null;
   for (let i = 0; i < table.nRows; i++) {
     rows[i] = [
       w.id(i),
@@ -28,6 +30,8 @@ export function mapCsv(args: { table: Table; roles: Roles; result: AnalysisResul
       formatNumber(result.confidence[i], 4),
     ];
     if (placed) rows[i].push(String(placed[i]));
+    if (noise !== null) rows[i].push(result.labels[i] === noise ? '1' : '0');
   }
-  return toCsv(placed ? [...MAP_CSV_HEADER, 'placed'] : MAP_CSV_HEADER, rows);
+  const header = [...MAP_CSV_HEADER, ...(placed ? ['placed'] : []), ...(noise !== null ? ['noise'] : [])];
+  return toCsv(header, rows);
 }

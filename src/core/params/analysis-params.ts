@@ -6,8 +6,8 @@ import type { ParamSpec } from './param-spec';
 export type EmbedMethod = 'pca' | 'tsne' | 'umap';
 /** Where to cluster: the scaled feature space after the recipe (default) or the 2-D map. */
 export type ClusterSpace = 'features' | 'map';
-/** k-means or a tree with one of the linkages of cluster/hierarchy/merge-tree.ts (a test keeps the lists equal). */
-export type ClusterMethod = 'kmeans' | Linkage;
+/** k-means, a tree with one of the linkages of cluster/hierarchy/merge-tree.ts (a test keeps the lists equal), or HDBSCAN. */
+export type ClusterMethod = 'kmeans' | Linkage | 'hdbscan';
 
 /**
  * The parameters of one analysis run (the map, the clusters, the seed), each defined once. The
@@ -75,12 +75,24 @@ export const PARAMS = {
     choices: [
       { value: 'kmeans', label: 'k-means' }, { value: 'ward', label: 'tree: Ward' }, { value: 'average', label: 'tree: average' },
       { value: 'complete', label: 'tree: complete' }, { value: 'single', label: 'tree: single' },
+      { value: 'hdbscan', label: 'HDBSCAN (no k)' },
     ],
-    help: ['kmeans (default), or a tree: ward, average, complete or single linkage'],
+    help: [
+      'kmeans (default), a tree: ward, average, complete or single linkage, or hdbscan',
+      '(density clusters without k; windows in none are set aside as noise)',
+    ],
   } satisfies ParamSpec<ClusterMethod>,
   cutHeight: {
     name: 'cutHeight', flag: 'cut-height', meta: '<h>', label: 'Cut height', kind: 'number', min: 0, default: 10,
     help: ['cut the tree at this merge height instead of into --k clusters'], panel: { min: 0, max: 1e9, step: 0.5 },
+  } satisfies ParamSpec<number>,
+  minClusterSize: {
+    name: 'minClusterSize', flag: 'min-cluster-size', meta: '<m>', label: 'Min. cluster size', kind: 'integer', min: 2, default: 50,
+    help: ['HDBSCAN: fewest windows a cluster may hold, an integer >= 2 (default {default})'], panel: { min: 2, max: 100_000 },
+  } satisfies ParamSpec<number>,
+  minSamples: {
+    name: 'minSamples', flag: 'min-samples', meta: '<m>', label: 'Min. samples', kind: 'integer', min: 1, default: 50,
+    help: ['HDBSCAN: windows (itself included) that make a neighbourhood dense (default: --min-cluster-size)'], panel: { min: 1, max: 100_000 },
   } satisfies ParamSpec<number>,
   space: {
     name: 'space', flag: 'space', meta: '<where>', label: 'Cluster in', kind: 'choice', default: 'features' as ClusterSpace,
@@ -93,7 +105,7 @@ export type ParamName = keyof typeof PARAMS;
 
 /** The parameters the run panel shows, in its order (the test walks them against the panel). */
 export const PANEL_PARAMS: readonly ParamName[] = [
-  'embed', 'perplexity', 'iterations', 'neighbors', 'minDist', 'metric', 'sampleAbove', 'cluster', 'k', 'cutHeight', 'restarts', 'space', 'seed',
+  'embed', 'perplexity', 'iterations', 'neighbors', 'minDist', 'metric', 'sampleAbove', 'cluster', 'k', 'cutHeight', 'minClusterSize', 'minSamples', 'restarts', 'space', 'seed',
 ];
 
 /** Windows a t-SNE perplexity must stay below, and the phrase an error gives. */

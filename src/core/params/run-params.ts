@@ -19,6 +19,10 @@ export interface RunValues {
   cluster: ClusterMethod;
   /** For a tree: cut at this height; absent = cut into k clusters. */
   cutHeight?: number;
+  /** HDBSCAN's minimum cluster size (used with cluster 'hdbscan'). */
+  minClusterSize: number;
+  /** HDBSCAN's minimum samples; absent = the minimum cluster size. */
+  minSamples?: number;
   space: ClusterSpace;
 }
 
@@ -27,6 +31,7 @@ export const DEFAULT_RUN_VALUES: RunValues = {
   k: PARAMS.k.default, seed: PARAMS.seed.default, restarts: PARAMS.restarts.default, embed: PARAMS.embed.default,
   perplexity: PARAMS.perplexity.default, iterations: PARAMS.iterations.default, neighbors: PARAMS.neighbors.default,
   minDist: PARAMS.minDist.default, metric: PARAMS.metric.default, cluster: PARAMS.cluster.default, space: PARAMS.space.default,
+  minClusterSize: PARAMS.minClusterSize.default,
 };
 
 /** The map the values ask for. */
@@ -39,6 +44,7 @@ export function embedChoiceOf(v: RunValues): EmbedChoice {
 /** The clusters the values ask for: k-means with k and restarts, or a tree cut into k or at a height. */
 export function clusterChoiceOf(v: RunValues): ClusterChoice {
   if (v.cluster === 'kmeans') return { method: 'kmeans', k: v.k, restarts: v.restarts, maxIterations: PARAMS.maxIterations.default };
+  if (v.cluster === 'hdbscan') return { method: 'hdbscan', minClusterSize: v.minClusterSize, ...(v.minSamples !== undefined ? { minSamples: v.minSamples } : {}) };
   return v.cutHeight !== undefined ? { method: v.cluster, cutHeight: v.cutHeight } : { method: v.cluster, k: v.k };
 }
 
@@ -51,7 +57,7 @@ export function clusterChoiceOf(v: RunValues): ClusterChoice {
 export function runParams(v: RunValues, how: { quality?: boolean } = {}): AnalysisParams {
   const kmeans = v.cluster === 'kmeans';
   const params: AnalysisParams = {
-    k: kmeans || v.cutHeight === undefined ? v.k : PARAMS.k.default,
+    k: kmeans || (v.cutHeight === undefined && v.cluster !== 'hdbscan') ? v.k : PARAMS.k.default,
     seed: v.seed,
     restarts: kmeans ? v.restarts : PARAMS.restarts.default,
     maxIterations: PARAMS.maxIterations.default,

@@ -66,7 +66,12 @@ function clusterChoice(c: ClusterChoice): ClusterChoice {
     checkParam(PARAMS.maxIterations, c.maxIterations);
     return c;
   }
-  if (!(LINKAGES as readonly unknown[]).includes(c.method)) throw new OptionError('cluster', c.method, `"kmeans" or a linkage (${LINKAGES.join(', ')})`);
+  if (c.method === 'hdbscan') {
+    checkParam(PARAMS.minClusterSize, c.minClusterSize);
+    if (c.minSamples !== undefined) checkParam(PARAMS.minSamples, c.minSamples);
+    return c;
+  }
+  if (!(LINKAGES as readonly unknown[]).includes(c.method)) throw new OptionError('cluster', c.method, `"kmeans", a linkage (${LINKAGES.join(', ')}) or "hdbscan"`);
   const hasK = c.k !== undefined, hasH = c.cutHeight !== undefined;
   if (hasK === hasH) throw new OptionError('cluster', c.method, 'either k or cutHeight for a tree cut (not both)');
   if (hasK) checkParam(PARAMS.k, c.k);

@@ -1,7 +1,9 @@
 import type { ClusterRecord, ClusterSpace } from '../analysis.types';
 import { centreConfidence } from '../cluster/confidence';
 import { clusterHierarchy, cutTree, windowLabels, type MergeTree } from '../cluster/hierarchy';
+import { hdbscan } from '../cluster/hdbscan';
 import { kmeans } from '../cluster/kmeans';
+import { pca } from '../embed/pca';
 import { relabelBySize } from '../cluster/relabel';
 import { OptionError } from '../errors';
 import type { JobContext } from '../job';
@@ -58,6 +60,7 @@ export async function clusterStage(
   }
 
   const treeCtx: JobContext = { checkpoint: () => ctx.checkpoint(), progress: (_stage, f) => report(f) };
+  if (c.method === 'hdbscan') return hdbscanStage(input, x, dx, c, choices, treeCtx);
   const h = await clusterHierarchy(x, n, dx, { linkage: c.method, seed: input.seed }, treeCtx);
   const { tree, assignment } = h;
   if (c.k !== undefined && c.k > tree.n) {
@@ -85,6 +88,64 @@ export async function clusterStage(
     sizes,
     tree,
     treeLeafOf: assignment,
+  };
+}
+
+/**
+ * HDBSCAN in the clustered space (features first projected onto choices.preReduce principal axes
+ * when there are more, as for t-SNE and UMAP). Dense clusters are numbered by size, largest first
+ * (ties: the one holding the lower window first); noise windows form the last cluster, which the
+ * curation sets aside from the start. Confidence is R dbscan's membership probability: within a
+ * cluster, (largest core distance − the window's) / largest core distance; 0 for noise.
+ */
+async function hdbscanStage(
+  input: ClusterInput, x: Float64Array, dx: number, c: Extract<PipelineChoices['cluster'], { method: 'hdbscan' }>,
+  choices: PipelineChoices, ctx: JobContext,
+): Promise<ClusterOutput> {
+  const { n, d, data } = input;
+  let points = x, dim = dx, preReduced: number | null = null;
+  if (choices.space === 'features' && dx > choices.preReduce) {
+    points = pca(x, n, dx, choices.preReduce).scores;
+    dim = choices.preReduce;
+    preReduced = choices.preReduce;
+  }
+  const minSamples = c.minSamples ?? c.minClusterSize;
+  const h = await hdbscan(points, n, dim, { minClusterSize: c.minClusterSize, minSamples }, ctx);
+  const found = h.clusters;
+  const count = new Int32Array(found);
+  const first = new Int32Array(found).fill(n);
+  for (let i = 0; i < n; i++) {
+    const l = h.labels[i];
+    if (l < 0) continue;
+    count[l]++;
+    if (i < first[l]) first[l] = i;
+  }
+  const order = Array.from({ length: found }, (_, j) => j).sort((a, b) => count[b] - count[a] || first[a] - first[b]);
+  const rank = new Int32Array(found);
+  order.forEach((old, j) => { rank[old] = j; });
+  const noise = n - count.reduce((a, b) => a + b, 0);
+  const k = found + (noise > 0 ? 1 : 0);
+  const labels = new Int32Array(n);
+  for (let i = 0; i < n; i++) labels[i] = h.labels[i] < 0 ? found : rank[h.labels[i]];
+  const maxCore = new Float64Array(k);
+  for (let i = 0; i < n; i++) if (labels[i] < found && h.coreDistance[i] > maxCore[labels[i]]) maxCore[labels[i]] = h.coreDistance[i];
+  const confidence = new Float32Array(n);
+  for (let i = 0; i < n; i++) {
+    const l = labels[i];
+    if (l < found) confidence[i] = maxCore[l] > 0 ? (maxCore[l] - h.coreDistance[i]) / maxCore[l] : 1;
+  }
+  const sizes = new Int32Array(k);
+  for (let i = 0; i < n; i++) sizes[labels[i]]++;
+  ctx.progress('clusters', 1);
+  return {
+    record: {
+      method: 'hdbscan', minClusterSize: c.minClusterSize, minSamples, k, clusters: found, noise,
+      noiseCluster: noise > 0 ? found : null, stability: order.map((old) => h.stability[old]), preReduced, space: choices.space,
+    },
+    labels,
+    confidence,
+    centroids: clusterMeans(data, n, d, labels, k),
+    sizes,
   };
 }
 

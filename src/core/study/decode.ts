@@ -84,7 +84,7 @@ function checkShape(s: Study, fail: (e: string, f?: string) => never): void {
     // The recorded actions, then the undone ones as redo would apply them, must fit the run's
     // clusters and windows: reopening replays them (the app keeps redo working the same way).
     try {
-      replay(initialCuration(run.result.labels, run.result.cluster?.k), [...run.curation.actions, ...[...run.curation.undone].reverse()]);
+      replay(initialCuration(run.result.labels, run.result.cluster?.k, run.result.cluster), [...run.curation.actions, ...[...run.curation.undone].reverse()]);
     } catch (err) {
       fail(`${where}.curation: recorded actions that fit the run's clusters and windows`, err instanceof Error ? err.message : String(err));
     }

@@ -35,7 +35,7 @@ describe('the parameter schema', () => {
     expect(DEFAULT_ANALYSIS_PARAMS).toEqual({ k: 8, seed: 1, restarts: 10, maxIterations: 300, silhouetteSample: 2000 });
     expect([TSNE_DEFAULTS.perplexity, TSNE_DEFAULTS.iterations]).toEqual([PARAMS.perplexity.default, PARAMS.iterations.default]);
     expect([UMAP_DEFAULTS.neighbors, UMAP_DEFAULTS.minDist, UMAP_DEFAULTS.metric]).toEqual([PARAMS.neighbors.default, PARAMS.minDist.default, PARAMS.metric.default]);
-    expect(PARAMS.cluster.choices.map((c) => c.value)).toEqual(['kmeans', ...LINKAGES]);
+    expect(PARAMS.cluster.choices.map((c) => c.value)).toEqual(['kmeans', ...LINKAGES, 'hdbscan']);
   });
 
   it('gives one rule per parameter: perplexity is a number above 0 from the flag, in the core and in the panel range', () => {
