@@ -13,6 +13,7 @@ const SUITES: Record<string, () => Promise<{ run(quick: boolean): Promise<void> 
   cluster: () => import('./suites/cluster'),
   traces: () => import('./suites/traces'),
   cancel: () => import('./suites/cancel'),
+  hdbscan: () => import('./suites/hdbscan'),
 };
 
 const args = process.argv.slice(2);
