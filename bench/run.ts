@@ -11,6 +11,7 @@ const SUITES: Record<string, () => Promise<{ run(quick: boolean): Promise<void> 
   cluster: () => import('./suites/cluster'),
   traces: () => import('./suites/traces'),
   cancel: () => import('./suites/cancel'),
+  peers: () => import('./suites/peers'),
 };
 
 const args = process.argv.slice(2);
