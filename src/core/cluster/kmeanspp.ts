@@ -1,5 +1,6 @@
 import type { Random } from '../random';
 import { squaredDistance } from './distance';
+import { distancesToCentres } from './nearest';
 
 /**
  * k-means++ seeding (greedy variant): the first centre is a uniformly drawn window; each next
@@ -16,29 +17,34 @@ export function kmeansPlusPlus(
   const closest = new Float64Array(n);
   for (let i = 0; i < n; i++) closest[i] = squaredDistance(data, i * d, centres, 0, d);
   const cumulative = new Float64Array(n);
-  const candidateDist = new Float64Array(n);
-  const bestDist = new Float64Array(n);
+  const candidateDist = new Float64Array(trials * n);
+  const dists = new Float64Array(trials);
   for (let c = 1; c < k; c++) {
     let acc = 0;
     for (let i = 0; i < n; i++) { acc += closest[i]; cumulative[i] = acc; }
-    let best = -1;
-    let bestPotential = Infinity;
-    for (let t = 0; t < trials; t++) {
-      const candidate = acc > 0 ? searchSorted(cumulative, random() * acc) : Math.floor(random() * n);
-      let pot = 0;
-      for (let i = 0; i < n; i++) {
-        const dist = Math.min(closest[i], squaredDistance(data, i * d, data, candidate * d, d));
-        candidateDist[i] = dist;
-        pot += dist;
-      }
-      if (pot < bestPotential) {
-        bestPotential = pot;
-        best = candidate;
-        bestDist.set(candidateDist);
+    // Draw every candidate first (the same draws in the same order), then measure them in one pass.
+    const candidates = new Int32Array(trials);
+    for (let t = 0; t < trials; t++) candidates[t] = acc > 0 ? searchSorted(cumulative, random() * acc) : Math.floor(random() * n);
+    const rows = new Float64Array(trials * d);
+    for (let t = 0; t < trials; t++) rows.set(data.subarray(candidates[t] * d, candidates[t] * d + d), t * d);
+    const pots = new Float64Array(trials);
+    for (let i = 0; i < n; i++) {
+      distancesToCentres(data, i * d, d, rows, trials, dists);
+      const near = closest[i];
+      for (let t = 0; t < trials; t++) {
+        const dist = Math.min(near, dists[t]);
+        candidateDist[t * n + i] = dist;
+        pots[t] += dist;
       }
     }
+    let best = -1;
+    let bestTrial = 0;
+    let bestPotential = Infinity;
+    for (let t = 0; t < trials; t++) {
+      if (pots[t] < bestPotential) { bestPotential = pots[t]; best = candidates[t]; bestTrial = t; }
+    }
+    closest.set(candidateDist.subarray(bestTrial * n, bestTrial * n + n));
     centres.set(data.subarray(best * d, best * d + d), c * d);
-    closest.set(bestDist);
   }
   return centres;
 }

@@ -1,4 +1,5 @@
 import { squaredDistance } from './distance';
+import { nearestTwo } from './nearest';
 
 /**
  * The state of one k-means run, advanced by `lloydStep`. Assignment uses Hamerly's bounds (an
@@ -34,29 +35,19 @@ export function initLloyd(data: Float64Array, n: number, d: number, centres: Flo
   };
 }
 
-/** Nearest and second-nearest centre of window i: [index, squared d1, squared d2]. */
-function scan(s: LloydState, i: number, out: Float64Array): void {
-  const { data, d, k, centres } = s;
-  const o = i * d;
-  let best = 0;
-  let d1 = Infinity;
-  let d2 = Infinity;
-  for (let c = 0; c < k; c++) {
-    const dist = squaredDistance(data, o, centres, c * d, d);
-    if (dist < d1) { d2 = d1; d1 = dist; best = c; } else if (dist < d2) d2 = dist;
-  }
-  out[0] = best;
-  out[1] = d1;
-  out[2] = d2;
+/** Nearest and second-nearest centre of window i: [index, squared d1, squared d2]; `scratch` holds k values. */
+function scan(s: LloydState, i: number, scratch: Float64Array, out: Float64Array): void {
+  nearestTwo(s.data, i * s.d, s.d, s.centres, s.k, scratch, out);
 }
 
 /** Exact assignment of every window to its nearest centre (ties to the lower index); returns how many changed. */
 export function assign(s: LloydState): number {
   const { n, labels, distances, upper, lower } = s;
   const tmp = new Float64Array(3);
+  const scratch = new Float64Array(s.k);
   let changed = 0;
   for (let i = 0; i < n; i++) {
-    scan(s, i, tmp);
+    scan(s, i, scratch, tmp);
     if (labels[i] !== tmp[0]) { labels[i] = tmp[0]; changed++; }
     distances[i] = tmp[1];
     upper[i] = Math.sqrt(tmp[1]);
@@ -77,6 +68,7 @@ function boundedAssign(s: LloydState): number {
     }
   }
   const tmp = new Float64Array(3);
+  const scratch = new Float64Array(k);
   let changed = 0;
   for (let i = 0; i < n; i++) {
     const a = labels[i];
@@ -86,7 +78,7 @@ function boundedAssign(s: LloydState): number {
     upper[i] = Math.sqrt(own);
     distances[i] = own;
     if (upper[i] <= m) continue;
-    scan(s, i, tmp);
+    scan(s, i, scratch, tmp);
     const best = tmp[0];
     // Keep the current cluster on exact ties, as the full scan would not prefer either.
     if (best !== a && tmp[1] < own) { labels[i] = best; changed++; }
