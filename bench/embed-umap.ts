@@ -14,7 +14,7 @@ import { autoEpochs, Umap } from '../src/core/embed/umap/index';
 import { sampleIndices } from '../src/core/metrics/sample';
 import { exactKnnOfRows, type SampleKnn } from '../src/core/neighbors/recall';
 import { seededRandom } from '../src/core/random';
-import { blobsDataset, demoDataset, quality, recordRow, timeInProcess, type Dataset } from './suites/embed';
+import { blobsDataset, demoDataset, quality, recordRow, timeInProcess, type Dataset } from './embed-common';
 
 const NEIGHBORS = 15;
 const MIN_DIST = 0.1;
