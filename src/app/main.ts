@@ -6,7 +6,9 @@ import { AppState } from './state/app.svelte';
 import './theme.css';
 
 const app = new AppState(pickHost());
-installTestHook(app);
+// The end-to-end tests ask for the read-only test view before the page loads (test/e2e/harness.ts);
+// an ordinary start never installs it.
+if ((window as unknown as { __gleanerWantsTestHook?: boolean }).__gleanerWantsTestHook === true) installTestHook(app);
 const host = app.host;
 host.onMenuCommand?.((command) => void (command === 'open' ? app.openFromHost() : app.exportLabels()));
 mount(App, { target: document.getElementById('app')!, props: { app } });

@@ -3,7 +3,7 @@ import type { AppState } from './state/app.svelte';
 import type { DrawnFigures } from './state/runs.svelte';
 
 /**
- * A small read-only view of the app for the end-to-end tests, installed as `window.__gleaner`.
+ * A small read-only view of the app for the end-to-end tests, installed as `window.__gleaner` only when a test asks (enableTestHook in test/e2e/harness.ts).
  * It exposes only what a test needs to check the Map and to aim the mouse; it changes nothing.
  *
  * - pointsDrawn, clustersDrawn: from the Map's last frame

@@ -216,4 +216,18 @@ describe('browser mode, end to end', () => {
     await waitForRuns(page, 2);
     expect(h.pageErrors).toEqual([]);
   });
+
+  it('installs its test view only when a test asks for it', async () => {
+    // A page of the same browser that did not ask (no enableTestHook): the app mounts as usual
+    // (src/app/main.ts decides before it mounts), and window.__gleaner is not there.
+    const plain = await h.context.newPage();
+    try {
+      await plain.goto(h.url);
+      await plain.getByRole('button', { name: 'Open…' }).waitFor({ timeout: 30_000 });
+      expect(await plain.evaluate(() => '__gleaner' in window)).toBe(false);
+      expect(await h.page.evaluate(() => '__gleaner' in window)).toBe(true);
+    } finally {
+      await plain.close();
+    }
+  });
 });

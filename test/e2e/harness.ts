@@ -62,6 +62,7 @@ export async function startHarness(): Promise<Harness> {
     throw err;
   }
   const page = context.pages()[0] ?? (await context.newPage());
+  await enableTestHook(page);
   const pageErrors: string[] = [];
   page.on('pageerror', (err) => pageErrors.push(err.message));
   const consoleErrors: string[] = [];
@@ -85,6 +86,14 @@ export async function startHarness(): Promise<Harness> {
       }
     },
   };
+}
+
+/**
+ * Asks the app on this page (from its next load on) to install its read-only test view,
+ * `window.__gleaner` (src/app/test-hook.ts); without it the app never does.
+ */
+export async function enableTestHook(page: Page): Promise<void> {
+  await page.addInitScript(() => { (window as unknown as { __gleanerWantsTestHook: boolean }).__gleanerWantsTestHook = true; });
 }
 
 /** Opens a file through the app's Open button and the browser's file chooser. */

@@ -10,7 +10,7 @@ import { join } from 'node:path';
 import type { Page } from 'playwright-core';
 import { readZip } from '../../src/core/study/zip';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { openThroughChooser, OUTPUT, ROOT, startHarness, waitForRuns, type Harness } from './harness';
+import { enableTestHook, openThroughChooser, OUTPUT, ROOT, startHarness, waitForRuns, type Harness } from './harness';
 
 const DEMO = join(ROOT, 'demo-data/windows.csv');
 const DEMO_WINDOWS = readFileSync(DEMO, 'utf8').split(/\r?\n/).filter((l) => l.length > 0).length - 1;
@@ -160,6 +160,7 @@ describe('study file, end to end', () => {
     await page.close({ runBeforeUnload: false }); // no save
 
     const p3 = await context.newPage();
+    await enableTestHook(p3);
     await p3.goto(h.url);
     await p3.getByRole('heading', { name: 'Restore unsaved work?' }).waitFor({ timeout: 20_000 });
     await p3.screenshot({ path: join(OUTPUT, 'study-autosave-offer.png') });
