@@ -137,7 +137,7 @@ describe('gleaner analyze on the demo windows, k = 7 (the number of true activit
   });
 
   it('flags the loose-watch cluster subject-bound in summary.json, and no other, with the reason', () => {
-    // Rule: DEVELOPERS.md "Subject-bound clusters" (effective subjects at most 0.35 of the cohort's).
+    // Rule: docs/subject-bound.md (effective subjects at most 0.35 of the cohort's).
     // Which cluster is the loose-watch one comes from truth.csv (>= 90% loose-watch windows).
     const looseIds = new Set(readRows(TRUTH).rows.filter((r) => r[2] === '1').map((r) => r[0]));
     const { rows } = readRows(join(outA, 'windows.csv'));

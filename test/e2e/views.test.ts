@@ -2,7 +2,7 @@
  * End to end, browser mode: the Mix, Fingerprints, Timeline and Runs views on the demo study
  * (demo-data/windows.csv, k = 7, seed 1). The expected subject-bound flag and its removal by
  * per-subject scaling are the planted facts of the demo (DESIGN.md §5: two volunteers wear the
- * watch loosely; DEVELOPERS.md "Subject-bound clusters" gives the measured core figures).
+ * watch loosely; docs/subject-bound.md gives the measured core figures).
  */
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';

@@ -16,7 +16,7 @@ export interface ClusterComposition {
   effectiveSubjects: number;
   /** Shannon entropy of the subject shares / ln(subjects in the table): 1 = spread evenly over all. */
   subjectEntropy: number;
-  /** Flagged by the subject-bound rule (see DEVELOPERS.md, "Subject-bound clusters"). */
+  /** Flagged by the subject-bound rule (see docs/subject-bound.md). */
   subjectBound: boolean;
   /** Why the cluster was or was not flagged, with the numbers the rule used. */
   subjectBoundReason: string;

@@ -4,7 +4,7 @@ import { OptionError } from '../errors';
  * One parameter, defined once: its name in AnalysisParams-style objects, its command-line flag,
  * its label in the app's run panel, its kind and limits, its default and its help. The CLI parser
  * and usage text (src/cli/parse-command.ts), the run panel (src/app/components/ParamsPanel.svelte)
- * and the core's checks all read these records; see DEVELOPERS.md "Adding a parameter".
+ * and the core's checks all read these records; see docs/parameters.md.
  */
 export type ParamKind = 'integer' | 'number' | 'choice' | 'text' | 'list' | 'boolean';
 

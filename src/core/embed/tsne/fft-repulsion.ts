@@ -10,7 +10,7 @@ export const MAX_BOX_WIDTH = 1;
 /**
  * Widest box on grids of side COARSE_GRID and up: 1.5. A 1024 grid costs about four times a 512 one
  * (over 0.2 s of CPU per step, most of a 100,000-window run), so spans from about 40 to 120 keep the
- * 512 grid with boxes 0.5 to 1.5 wide (measured: see DEVELOPERS.md "Embeddings").
+ * 512 grid with boxes 0.5 to 1.5 wide (measured: see docs/embeddings.md).
  */
 export const COARSE_BOX_WIDTH = 1.5;
 /** Grid side from which boxes may be COARSE_BOX_WIDTH wide. */

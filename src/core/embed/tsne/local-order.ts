@@ -13,7 +13,7 @@ const ORDER_LEAF = 64;
  * original row numbers. The search reads neighbours' rows all over the data, which at 100,000
  * windows × 50 features (40 MB) mostly misses the caches: measured there with the t-SNE settings,
  * 49 s of CPU instead of 76 s for the same recall (0.850 against 0.853 on 200 rows; see
- * DEVELOPERS.md "Embeddings"). Same inputs and seeds → the same graph.
+ * docs/embeddings.md). Same inputs and seeds → the same graph.
  */
 export async function approximateKnnLocal(
   x: Float64Array, n: number, d: number, k: number, options: ApproximateKnnOptions & { ctx: JobContext }, orderRandom: Random,

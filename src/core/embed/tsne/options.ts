@@ -48,7 +48,7 @@ export const TSNE_DEFAULTS: Readonly<TsneOptions> = Object.freeze({
   repulsion: 'auto',
 });
 
-/** Smallest n for which repulsion 'auto' uses the FFT (measured: see DEVELOPERS.md "Embeddings"). */
+/** Smallest n for which repulsion 'auto' uses the FFT (measured: see docs/embeddings.md). */
 export const FFT_MIN_N = 5_000;
 
 /** Largest n for which 'auto' searches neighbours exactly (O(n² d)); NN-descent above. */

@@ -81,7 +81,7 @@ export function neighboursFor(perplexity: number, n: number): number {
 /**
  * Neighbours per window searched by NN-descent: min(n − 1, ⌊1.5 · perplexity⌋ + 1) (46 at the
  * default 30). The Gaussian calibrated to the perplexity puts little weight past 1.5 · perplexity
- * neighbours, and the search costs grow steeply with k (measured: see DEVELOPERS.md "Embeddings").
+ * neighbours, and the search costs grow steeply with k (measured: see docs/embeddings.md).
  */
 export function approximateNeighboursFor(perplexity: number, n: number): number {
   return Math.min(n - 1, Math.max(Math.ceil(perplexity) + 1, Math.floor(1.5 * perplexity) + 1));

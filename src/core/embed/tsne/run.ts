@@ -11,7 +11,7 @@ const PREPARE_SHARE = 0.15;
  * NN-descent settings for the affinities (its defaults serve UMAP's small k): candidates joined per
  * window and round, random-projection trees for the start, and the stopping share of improved
  * entries per round. Measured at 20,000 blobs, d = 50, k = 46 (recall against brute force on 200
- * rows; see DEVELOPERS.md "Embeddings"): its defaults with 20 candidates gave recall 0.997 in 14.6 s
+ * rows; see docs/embeddings.md): its defaults with 20 candidates gave recall 0.997 in 14.6 s
  * of CPU, these 0.961 in 10.9 s; the map's trustworthiness (k = 10) stayed at 0.967 there and 0.964
  * at 100,000 windows.
  */
