@@ -6,6 +6,7 @@ import { categoricalColumn, composeByName } from '../core/composition/compose-by
 import { labelAgreement } from '../core/composition/label-agreement';
 import { subjectComposition } from '../core/export/cluster-composition';
 import { mapCsv } from '../core/export/map-csv';
+import { runIdentities } from '../core/export/run-model';
 import { columnWithRole } from '../core/export/window-columns';
 import { featureMatrix } from '../core/table/matrix';
 import { checkTable } from '../core/table/checks';
@@ -66,6 +67,7 @@ export async function analyzeCommand(opts: AnalyzeOptions, deps: AnalyzeDeps): P
   // The recipe dropped windows: the outputs list the analysed windows only.
   if (result.windows) ({ table, roles } = keepRows(table, roles, result.windows));
 
+  const identities = runIdentities(result, table, roles);
   const { clusters: composition, ...subjects } = subjectComposition(result.labels, result.cluster.k, columnWithRole(table, roles, 'subject'));
   const compositions = (opts.compose ?? []).map((name) => composeByName(table, result.labels, result.cluster.k, name));
   const label = columnWithRole(table, roles, 'label');
@@ -75,15 +77,16 @@ export async function analyzeCommand(opts: AnalyzeOptions, deps: AnalyzeDeps): P
     params,
     result,
     composition,
+    identities,
     subjects,
     compositions,
     labelAgreement: label ? labelAgreement(result.labels, label) : null,
     version: deps.version,
   });
   mkdirSync(outDir, { recursive: true });
-  writeFileAtomic(outFiles.windows, mapCsv({ table, roles, result }));
+  writeFileAtomic(outFiles.windows, mapCsv({ table, roles, result, identities }));
   writeFileAtomic(outFiles.summary, `${JSON.stringify(summary, null, 2)}\n`);
-  const eventFiles = opts.events ? writeEventFiles(outDir, opts.input, table, roles, result) : [];
+  const eventFiles = opts.events ? writeEventFiles(outDir, opts.input, table, roles, result, identities) : [];
   return { files: [outFiles.windows, outFiles.summary, ...eventFiles], rows: n, result };
 }
 

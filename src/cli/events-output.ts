@@ -3,6 +3,7 @@ import { join } from 'node:path';
 import type { AnalysisResult } from '../core/analysis.types';
 import { edfAnnotationFiles } from '../core/export/edf-annotations';
 import { eventsTsv } from '../core/export/events-tsv';
+import type { ClusterIdentity } from '../core/export/run-model';
 import { eventSegments } from '../core/export/segments';
 import type { Roles } from '../core/table/roles.types';
 import type { Table } from '../core/table/table';
@@ -14,8 +15,10 @@ import { writeFileAtomic } from './write-atomic';
  * written to <out>/events.tsv and one EDF+ annotation file per subject. `table` and `roles` are the
  * analysed windows (after any rows the recipe dropped). Returns the paths written.
  */
-export function writeEventFiles(outDir: string, input: string, table: Table, roles: Roles, result: AnalysisResult): string[] {
-  const segments = eventSegments({ table, roles, labels: result.labels, confidence: result.confidence, classNames: [] });
+export function writeEventFiles(
+  outDir: string, input: string, table: Table, roles: Roles, result: AnalysisResult, identities: readonly ClusterIdentity[],
+): string[] {
+  const segments = eventSegments({ table, roles, labels: result.labels, confidence: result.confidence, identities });
   const files = [
     { path: join(outDir, 'events.tsv'), data: eventsTsv(segments) as string | Uint8Array },
     ...edfAnnotationFiles(segments).map((f) => ({ path: join(outDir, f.name), data: f.bytes })),

@@ -46,7 +46,7 @@ export async function runCli(argv: readonly string[]): Promise<number> {
     const c = outcome.result.cluster;
     const noise = c.method === 'hdbscan' ? c.noiseCluster : null;
     const dense = Array.from(outcome.result.sizes).filter((_, j) => j !== noise);
-    const clusters = noise === null ? `${c.k} clusters` : `${dense.length} clusters and ${outcome.result.sizes[noise]} noise windows (cluster ${noise}, column noise)`;
+    const clusters = noise === null ? `${c.k} clusters` : `${dense.length} clusters and ${outcome.result.sizes[noise]} noise windows (cluster ${noise + 1}, column noise)`;
     process.stdout.write(`gleaner: ${outcome.rows} windows in ${clusters} (sizes ${dense.join(', ')}); wrote ${outcome.files.join(' and ')}\n`);
     return 0;
   } catch (err) {

@@ -3,6 +3,7 @@ import { CAUTIONS } from '../core/cautions';
 import type { ColumnComposition } from '../core/composition/compose-column';
 import type { LabelAgreement } from '../core/composition/label-agreement';
 import type { ClusterComposition, SubjectComposition } from '../core/export/cluster-composition';
+import { exportedClusterRecord, identityRecord, type ClusterIdentity } from '../core/export/run-model';
 import type { Roles } from '../core/table/roles.types';
 
 export interface SummaryInput {
@@ -12,6 +13,8 @@ export interface SummaryInput {
   result: AnalysisResult;
   /** Subject composition per cluster (with the subject-bound verdicts). */
   composition: ClusterComposition[];
+  /** The clusters' numbers, names and flags (runIdentities), one per cluster index. */
+  identities: readonly ClusterIdentity[];
   /** Overall cluster–subject association and the rule used; omitted in older callers. */
   subjects?: Omit<SubjectComposition, 'clusters'>;
   /** Mix of further categorical columns (--compose), in the order given. */
@@ -37,7 +40,7 @@ function composed(c: ColumnComposition): Record<string, unknown> {
     cohort: c.cohort,
     rule: c.rule,
     clusters: c.clusters.map((m) => ({
-      id: m.id, size: m.size, top: m.top, topShare: m.topShare, values: m.values,
+      number: m.id + 1, size: m.size, top: m.top, topShare: m.topShare, values: m.values,
       effectiveValues: m.effectiveValues, entropy: m.entropy, bound: m.bound, boundReason: m.boundReason, byValue: m.byValue,
     })),
   };
@@ -59,7 +62,7 @@ export function buildSummary(s: SummaryInput): Record<string, unknown> {
     roles: s.roles.map((r) => ({ column: r.name, role: r.role, evidence: r.evidence })),
     recipe: result.recipe,
     embed: result.embed,
-    cluster: { ...result.cluster, seed: params.seed },
+    cluster: { ...exportedClusterRecord(result.cluster), seed: params.seed },
     seed: params.seed,
     metrics: {
       ...result.metrics,
@@ -74,7 +77,7 @@ export function buildSummary(s: SummaryInput): Record<string, unknown> {
       text: ruleText(subjects.subjectBoundRule),
     };
   }
-  out.clusters = s.composition;
+  out.clusters = s.composition.map(({ id, ...mix }) => ({ ...identityRecord(s.identities[id]), ...mix }));
   if (s.compositions && s.compositions.length > 0) out.compositions = s.compositions.map(composed);
   if (s.labelAgreement) out.labelAgreement = s.labelAgreement;
   out.cautions = CAUTIONS;

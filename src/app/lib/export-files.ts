@@ -8,6 +8,9 @@ import { CAUTIONS } from '../../core/cautions';
 import { studyExports } from '../../core/export/study-exports';
 import { studyReportHtml, type ReportCluster, type ReportFigure } from '../../core/export/study-report';
 import type { Study } from '../../core/study/study.types';
+import type { CurationState } from '../../core/curation/curation.types';
+import type { ClusterIdentity } from '../../core/export/run-model';
+import { keepRows } from '../../core/recipe/keep-rows';
 import type { ViewFigure } from './figures';
 import { mapPng, mapSvg, type MapFigureInput } from './map-figure';
 import { svgToPng } from './svg-png';
@@ -23,24 +26,21 @@ export function weakLabelFiles(args: {
   source: Source;
   table: Table;
   run: Run;
-  clusterNames: string[];
-  /** Curated cluster per window and set-aside flag per cluster (curation.svelte.ts); the run's own when absent. */
-  labels?: Int32Array;
-  setAside?: boolean[];
+  /** The curation shown (curation.svelte.ts): labels per analysed window and each cluster's identity. */
+  state: CurationState;
+  identities: readonly ClusterIdentity[];
   appVersion: string;
   createdAt: string;
 }): FileToWrite[] {
-  const { source, table, run, clusterNames } = args;
-  // Curated labels cover every table row only when the recipe dropped no window.
-  const labels = args.labels && args.labels.length === table.nRows ? args.labels : undefined;
-  const csv = weakLabelsCsv({ table, roles: run.roles, result: run.result, clusterNames, labels, setAside: args.setAside });
-  const sizes = labels ? curatedSizes(labels, clusterNames.length) : run.result.sizes;
+  const { source, run, state, identities } = args;
+  const { table, roles } = run.result.windows ? keepRows(args.table, run.roles, run.result.windows) : { table: args.table, roles: run.roles };
+  const csv = weakLabelsCsv({ table, roles, result: run.result, identities, labels: state.labels });
   const provenance = buildProvenance({
     input: { fileName: source.fileName, sha256: source.sha256, rows: table.nRows, features: run.featureNames.length },
     roles: run.roles,
     params: run.params,
-    result: { ...run.result, sizes },
-    clusterNames,
+    result: run.result,
+    identities,
     appVersion: args.appVersion,
     createdAt: args.createdAt,
   });
@@ -50,13 +50,6 @@ export function weakLabelFiles(args: {
     { name: `${base}-weak-labels.csv`, data: csv },
     { name: `${base}-provenance.json`, data: `${JSON.stringify(withRecipe, null, 2)}\n` },
   ];
-}
-
-/** Windows per curated cluster. */
-function curatedSizes(labels: Int32Array, k: number): Int32Array {
-  const sizes = new Int32Array(k);
-  for (let i = 0; i < labels.length; i++) if (labels[i] >= 0 && labels[i] < k) sizes[labels[i]]++;
-  return sizes;
 }
 
 /**

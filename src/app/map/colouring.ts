@@ -10,7 +10,8 @@ export type ColourBy = 'cluster' | 'subject' | 'time' | `label:${string}` | `met
 export interface CategoryLegend {
   kind: 'categories';
   title: string;
-  entries: { name: string; colour: string }[];
+  /** Cluster legends also give each entry's number (as exported) and composition flags with their reasons. */
+  entries: { name: string; colour: string; number?: number; flags?: { text: string; reason: string }[] }[];
 }
 
 export interface ScaleLegend {

@@ -187,13 +187,12 @@ export class AppState {
 
   async exportLabels(): Promise<void> {
     const { table, source, run } = this.study;
-    if (!table || !source || !run) return;
+    const state = this.curation.state;
+    if (!table || !source || !run || !state) return;
     try {
       const files = weakLabelFiles({
-        source, table, run,
-        clusterNames: this.curation.classNames(),
-        labels: this.curation.labels ?? undefined,
-        setAside: this.curation.setAside(),
+        source, table, run, state,
+        identities: this.curation.identities,
         appVersion: version,
         createdAt: isoNow(),
       });

@@ -13,6 +13,10 @@ import { packHex } from '../map/raster';
 import type { Status } from './status.svelte';
 import type { Study } from './study.svelte';
 import type { Run } from '../../core/run/run.types';
+import { candidateName, clusterIdentities, type ClusterIdentity } from '../../core/export/run-model';
+import { keepRows } from '../../core/recipe/keep-rows';
+import type { Roles } from '../../core/table/roles.types';
+import type { Table } from '../../core/table/table';
 
 /** Up to this many clusters get their own Map colour slot (the Map's colour index is one byte). */
 const MAP_SLOTS = 255;
@@ -40,6 +44,8 @@ export class Curation {
   /** Blank histories of runs not curated yet (not reactive: they never change). */
   private readonly blank = new WeakMap<Run, History>();
   private readonly sizeCache = new WeakMap<CurationState, Int32Array>();
+  private readonly identityCache = new WeakMap<CurationState, ClusterIdentity[]>();
+  private readonly analysedCache = new WeakMap<Run, { table: Table; roles: Roles }>();
   /** Bumped by every change (autosave watches it). */
   revision = $state(0);
   /** A split is running in the worker. */
@@ -97,6 +103,47 @@ export class Curation {
     return sizes;
   }
 
+  /**
+   * Every cluster's identity in the shown run's curation (number, name, class, size, flags): the
+   * same function every export calls, so the screen and the files cannot disagree.
+   */
+  get identities(): ClusterIdentity[] {
+    const run = this.deps.study.run;
+    const s = this.state;
+    return run && s ? this.identitiesOf(run, s) : [];
+  }
+
+  /** The identities of a run's curation now (the shown run's, or a kept run's last state). */
+  identitiesOf(run: Run, state: CurationState | null = this.stateOf(run)): ClusterIdentity[] {
+    if (!state) return [];
+    let ids = this.identityCache.get(state);
+    if (!ids) {
+      const analysed = this.analysed(run);
+      ids = clusterIdentities({ state, table: analysed?.table, roles: analysed?.roles });
+      this.identityCache.set(state, ids);
+    }
+    return ids;
+  }
+
+  /** A run's curation state now: its history's present, or the run's own labels uncurated. */
+  private stateOf(run: Run): CurationState | null {
+    if (run === this.deps.study.run) return this.state;
+    return this.histories.get(run)?.present ?? initialCuration(run.result.labels, run.result.cluster.k, run.result.cluster);
+  }
+
+  /** The rows the run analysed (the recipe may have dropped some), for the composition flags. */
+  private analysed(run: Run): { table: Table; roles: Roles } | null {
+    const table = this.deps.study.table;
+    if (!table) return null;
+    let a = this.analysedCache.get(run);
+    if (!a) {
+      a = run.result.windows ? keepRows(table, run.roles, run.result.windows) : { table, roles: run.roles };
+      if (a.table.nRows !== run.result.labels.length) return null;
+      this.analysedCache.set(run, a);
+    }
+    return a;
+  }
+
   /** Indices of clusters still in use (not emptied by a merge or a move). */
   get live(): number[] {
     const sizes = this.sizes;
@@ -113,10 +160,10 @@ export class Curation {
     return !!h && canRedo(h);
   }
 
-  /** The name shown for a cluster: its class name, else its working name, else "candidate N". */
+  /** The name shown for a cluster: its class name, else its working name, else "candidate N" (its identity's name). */
   displayName(c: number): string {
     const note = this.clusters[c];
-    return note?.className || note?.name || `candidate ${c + 1}`;
+    return note?.className || note?.name || candidateName(c);
   }
 
   /** The colour chosen for a cluster, else its palette colour (what the colour picker shows). */
@@ -218,9 +265,12 @@ export class Curation {
     palette[slots] = packHex(MISSING_COLOUR);
     const index = new Uint8Array(labels.length);
     for (let i = 0; i < labels.length; i++) index[i] = labels[i] < 0 ? slots : labels[i] % MAP_SLOTS;
+    const ids = this.identities;
     const entries = this.live.map((c) => ({
       name: this.clusters[c].setAside ? `${this.displayName(c)} (set aside)` : this.displayName(c),
       colour: this.colour(c),
+      number: c + 1,
+      flags: (ids[c]?.flags ?? []).map((f) => ({ text: f.text, reason: f.reason })),
     }));
     return { index, palette, legend: { kind: 'categories', title: 'cluster', entries } };
   }

@@ -118,7 +118,7 @@ export class StudyFile {
       params: { ...run.params } as unknown as Record<string, unknown>,
       result: run.result,
       curation: curation.recorded(run),
-      flags: [],
+      flags: curation.identitiesOf(run).flatMap((id) => id.flags.map((f) => ({ cluster: id.number, flag: f.text, note: f.reason }))),
       createdAt: isoNow(),
     }));
     const view: ViewSettings = { colourBy: map.colourBy, dock: dock.view, params: { k: params.k, seed: params.seed, restarts: params.restarts } };

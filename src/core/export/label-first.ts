@@ -1,9 +1,11 @@
 import { formatNumber, toCsv } from './csv';
 import type { Roles } from '../table/roles.types';
 import type { Table } from '../table/table';
+import type { ClusterIdentity } from './run-model';
 import { windowColumns } from './window-columns';
 
 export interface LabelFirstRow {
+  /** Cluster index (0-based). */
   cluster: number;
   className: string;
   /** typical: the cluster's most confident windows (far from any other centre); borderline: its least. */
@@ -13,7 +15,7 @@ export interface LabelFirstRow {
   confidence: number;
 }
 
-export const LABEL_FIRST_HEADER = ['class_name', 'cluster', 'kind', 'rank', 'window_id', 'subject', 'session', 'start', 'end', 'confidence'];
+export const LABEL_FIRST_HEADER = ['class_name', 'cluster', 'cluster_name', 'kind', 'rank', 'window_id', 'subject', 'session', 'start', 'end', 'confidence'];
 
 /**
  * "Label these first": for each cluster (classes, and candidates unless `classesOnly`), the `perKind`
@@ -24,8 +26,8 @@ export const LABEL_FIRST_HEADER = ['class_name', 'cluster', 'kind', 'rank', 'win
 export function labelFirstList(args: {
   labels: Int32Array;
   confidence: ArrayLike<number>;
-  classNames: readonly (string | undefined)[];
-  setAside?: readonly boolean[];
+  /** Identity per cluster index (clusterIdentities on the same curation). */
+  identities: readonly ClusterIdentity[];
   perKind?: number;
   classesOnly?: boolean;
 }): LabelFirstRow[] {
@@ -34,8 +36,10 @@ export function labelFirstList(args: {
   const members = new Map<number, number[]>();
   for (let i = 0; i < args.labels.length; i++) {
     const c = args.labels[i];
-    if (args.setAside?.[c]) continue;
-    if (args.classesOnly && !(args.classNames[c] ?? '')) continue;
+    const id = args.identities[c];
+    if (!id) throw new Error(`labelFirstList: window ${i} is in cluster index ${c}, which has no identity`);
+    if (id.setAside) continue;
+    if (args.classesOnly && !id.className) continue;
     const m = members.get(c);
     if (m) m.push(i);
     else members.set(c, [i]);
@@ -47,18 +51,18 @@ export function labelFirstList(args: {
     const typical = byConf.slice(0, perKind);
     const rest = byConf.slice(typical.length);
     const borderline = rest.reverse().sort((a, b) => conf(a) - conf(b) || a - b).slice(0, perKind);
-    const className = args.classNames[c] ?? '';
+    const className = args.identities[c].className;
     typical.forEach((w, r) => out.push({ cluster: c, className, kind: 'typical', rank: r + 1, window: w, confidence: args.confidence[w] }));
     borderline.forEach((w, r) => out.push({ cluster: c, className, kind: 'borderline', rank: r + 1, window: w, confidence: args.confidence[w] }));
   }
   return out;
 }
 
-/** The list as CSV with each window's identity columns. */
-export function labelFirstCsv(table: Table, roles: Roles, rows: readonly LabelFirstRow[]): string {
+/** The list as CSV with each window's identity columns; clusters by number and name, as on screen. */
+export function labelFirstCsv(table: Table, roles: Roles, rows: readonly LabelFirstRow[], identities: readonly ClusterIdentity[]): string {
   const w = windowColumns(table, roles);
   return toCsv(LABEL_FIRST_HEADER, rows.map((r) => [
-    r.className, String(r.cluster), r.kind, String(r.rank),
+    r.className, String(identities[r.cluster].number), identities[r.cluster].name, r.kind, String(r.rank),
     w.id(r.window), w.subject(r.window), w.session(r.window), w.start(r.window), w.end(r.window),
     formatNumber(r.confidence, 4),
   ]));

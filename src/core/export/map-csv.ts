@@ -2,18 +2,19 @@ import type { AnalysisResult } from '../analysis.types';
 import type { Roles } from '../table/roles.types';
 import type { Table } from '../table/table';
 import { formatNumber, toCsv } from './csv';
+import type { ClusterIdentity } from './run-model';
 import { windowColumns } from './window-columns';
 
-export const MAP_CSV_HEADER = ['id', 'subject', 'start', 'end', 'x', 'y', 'cluster', 'confidence'];
+export const MAP_CSV_HEADER = ['id', 'subject', 'start', 'end', 'x', 'y', 'cluster', 'cluster_name', 'confidence'];
 
 /**
- * The CLI's per-window table: identity columns, map coordinates, cluster index (0-based) and
- * confidence, then `placed` (1 = placed from its sampled neighbours, 0 = embedded) only when the
+ * The CLI's per-window table: identity columns, map coordinates, the cluster's number (index + 1)
+ * and name (as the app shows them) and confidence, then `placed` (1 = placed from its sampled neighbours, 0 = embedded) only when the
  * run sampled, and `noise` (1 = in no dense cluster: the set-aside last cluster) only for HDBSCAN
  * runs. Numbers are formatted deterministically, so the same run gives the same bytes.
  */
-export function mapCsv(args: { table: Table; roles: Roles; result: AnalysisResult }): string {
-  const { table, roles, result } = args;
+export function mapCsv(args: { table: Table; roles: Roles; result: AnalysisResult; identities: readonly ClusterIdentity[] }): string {
+  const { table, roles, result, identities } = args;
   const w = windowColumns(table, roles);
   const rows: (string | number)[][] = new Array(table.nRows);
   const placed = result.placed;
@@ -26,7 +27,8 @@ export function mapCsv(args: { table: Table; roles: Roles; result: AnalysisResul
       w.end(i),
       formatNumber(result.coords[2 * i]),
       formatNumber(result.coords[2 * i + 1]),
-      String(result.labels[i]),
+      String(identities[result.labels[i]].number),
+      identities[result.labels[i]].name,
       formatNumber(result.confidence[i], 4),
     ];
     if (placed) rows[i].push(String(placed[i]));

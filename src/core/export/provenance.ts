@@ -1,6 +1,7 @@
 import type { AnalysisParams, AnalysisResult } from '../analysis.types';
 import { CAUTIONS } from '../cautions';
 import type { Roles } from '../table/roles.types';
+import { exportedClusterRecord, identityRecord, type ClusterIdentity } from './run-model';
 
 export const PROVENANCE_SCHEMA_VERSION = 1;
 
@@ -17,8 +18,8 @@ export interface ProvenanceInput {
   roles: Roles;
   params: AnalysisParams;
   result: AnalysisResult;
-  /** Class name per cluster index; '' or missing for a candidate. */
-  clusterNames: readonly (string | undefined)[];
+  /** The curated clusters (clusterIdentities): number, name, class, size, flags. */
+  identities: readonly ClusterIdentity[];
   appVersion: string;
   /** ISO 8601 time of the export, supplied by the caller (the core has no clock). */
   createdAt: string;
@@ -40,15 +41,11 @@ export function buildProvenance(p: ProvenanceInput): Record<string, unknown> {
     roles: p.roles.map((r) => ({ column: r.name, role: r.role })),
     recipe: result.recipe.map((s) => ({ step: s.step, params: s.params, effect: s.effect })),
     embed: { ...result.embed, seed: params.seed },
-    cluster: { space: 'features', ...result.cluster, seed: params.seed, silhouetteSample: params.silhouetteSample },
+    cluster: { space: 'features', ...exportedClusterRecord(result.cluster), seed: params.seed, silhouetteSample: params.silhouetteSample },
     ...(result.placed ? { placedWindows: result.placed.reduce((s, v) => s + v, 0) } : {}),
     seed: params.seed,
     metrics: { ...result.metrics },
-    clusters: Array.from(result.sizes, (size, id) => ({
-      id,
-      size,
-      className: p.clusterNames[id] ?? '',
-    })),
+    clusters: p.identities.map(identityRecord),
     cautions: [...CAUTIONS],
   };
 }

@@ -1,6 +1,7 @@
 import { OptionError } from '../errors';
 import type { Roles } from '../table/roles.types';
 import { cellText, type Column, type Table } from '../table/table';
+import type { ClusterIdentity } from './run-model';
 import { columnWithRole } from './window-columns';
 
 /** Consecutive windows of one class (or candidate) of one subject and session, merged. */
@@ -12,8 +13,9 @@ export interface Segment {
   duration: number;
   /** Start time of the subject's and session's first window, in the table's seconds. */
   origin: number;
-  /** Class name, or "cluster_<index>" for a candidate. */
+  /** The cluster's shown name: class name, else working name, else "candidate <number>". */
   trialType: string;
+  /** The cluster's number (index + 1, as on screen). */
   cluster: number;
   /** Class name ('' for a candidate). */
   className: string;
@@ -22,7 +24,7 @@ export interface Segment {
 }
 
 export interface SegmentOptions {
-  /** Also merge windows of unnamed candidates (trial type "cluster_<index>"); default true. */
+  /** Also merge windows of clusters not promoted to a class (trial type = their shown name); default true. */
   includeCandidates?: boolean;
   /** Largest gap in seconds between one window's end and the next one's start that still joins them; default 0. */
   maxGap?: number;
@@ -63,12 +65,11 @@ export function eventSegments(args: {
   /** Cluster per window (curated labels), one per table row. */
   labels: Int32Array;
   confidence: ArrayLike<number>;
-  /** Class name per cluster ('' = candidate). */
-  classNames: readonly (string | undefined)[];
-  setAside?: readonly boolean[];
+  /** Identity per cluster index (clusterIdentities on the same curation). */
+  identities: readonly ClusterIdentity[];
   options?: SegmentOptions;
 }): Segment[] {
-  const { table, roles, labels, confidence, classNames } = args;
+  const { table, roles, labels, confidence, identities } = args;
   const includeCandidates = args.options?.includeCandidates ?? true;
   const maxGap = args.options?.maxGap ?? 0;
   if (!(maxGap >= 0)) throw new OptionError('maxGap', maxGap, 'seconds >= 0');
@@ -94,20 +95,22 @@ export function eventSegments(args: {
     let open: { first: number; end: number; cluster: number; sum: number; n: number } | null = null;
     const close = () => {
       if (!open) return;
-      const className = classNames[open.cluster] ?? '';
+      const id = identities[open.cluster];
       out.push({
         subject: g.subject, session: g.session, origin,
         onset: start[open.first] - origin,
         duration: open.end - start[open.first],
-        trialType: className || `cluster_${open.cluster}`,
-        cluster: open.cluster, className,
+        trialType: id.name,
+        cluster: id.number, className: id.className,
         windows: open.n, meanConfidence: open.sum / open.n,
       });
       open = null;
     };
     for (const i of g.rows) {
       const c = labels[i];
-      const kept = !args.setAside?.[c] && (includeCandidates || (classNames[c] ?? '') !== '');
+      const id = identities[c];
+      if (!id) throw new Error(`eventSegments: window ${i} is in cluster index ${c}, which has no identity`);
+      const kept = !id.setAside && (includeCandidates || id.className !== '');
       if (open && (!kept || c !== open.cluster || start[i] > open.end + maxGap + TIME_EPS)) close();
       if (!kept) continue;
       if (open) {

@@ -1,4 +1,3 @@
-import { classNames, clusterSizes, setAsideFlags } from '../curation/initial-state';
 import type { CurationAction } from '../curation/curation.types';
 import { keepRows } from '../recipe/keep-rows';
 import type { Study } from '../study/study.types';
@@ -10,6 +9,7 @@ import { eventsTsv } from './events-tsv';
 import { labelFirstCsv, labelFirstList } from './label-first';
 import { buildProvenance } from './provenance';
 import { eventSegments, type SegmentOptions } from './segments';
+import { clusterIdentities, clusterNumber } from './run-model';
 import { weakLabelsCsv } from './weak-labels';
 
 export interface StudyExportFile {
@@ -23,10 +23,17 @@ function baseName(fileName: string): string {
   return dot > 0 ? fileName.slice(0, dot) : fileName;
 }
 
-/** An action as provenance text: typed arrays become their length. */
+/** Action fields that name a cluster index; provenance writes them as cluster numbers. */
+const CLUSTER_FIELDS = new Set(['cluster', 'into', 'from', 'to']);
+
+/** An action as provenance text: clusters by number (index + 1), typed arrays as their length. */
 function actionRecord(a: CurationAction): Record<string, unknown> {
   const out: Record<string, unknown> = {};
-  for (const [k, v] of Object.entries(a)) out[k] = v instanceof Int32Array ? { windows: v.length } : v;
+  for (const [k, v] of Object.entries(a)) {
+    if (v instanceof Int32Array) out[k] = { windows: v.length };
+    else if (CLUSTER_FIELDS.has(k)) out[k] = Array.isArray(v) ? v.map((c: number) => clusterNumber(c)) : clusterNumber(v as number);
+    else out[k] = v;
+  }
   return out;
 }
 
@@ -53,10 +60,8 @@ export function studyExports(args: {
   const { result } = run;
   const { table, roles } = result.windows ? keepRows(args.table, run.roles, result.windows) : { table: args.table, roles: run.roles };
   const state = runCuration(run);
-  const names = classNames(state);
-  const aside = setAsideFlags(state);
+  const identities = clusterIdentities({ state, table, roles });
   const base = baseName(input.fileName);
-  const sizes = clusterSizes(state);
 
   const provenance = {
     ...buildProvenance({
@@ -64,27 +69,27 @@ export function studyExports(args: {
       roles: run.roles,
       params: run.params as unknown as AnalysisParams,
       result,
-      clusterNames: names,
+      identities,
       appVersion: args.appVersion,
       createdAt: args.createdAt,
     }),
     study: { run: run.id, runCreatedAt: run.createdAt },
     curation: {
       actions: run.curation.actions.map(actionRecord),
-      clusters: state.clusters.map((c, id) => ({ id, ...c, size: sizes[id] })),
+      clusters: state.clusters.map((c, i) => ({ number: identities[i].number, ...c, mergedInto: c.mergedInto < 0 ? null : identities[c.mergedInto].number, size: identities[i].size })),
     },
   };
   const files: StudyExportFile[] = [
-    { name: `${base}-weak-labels.csv`, data: weakLabelsCsv({ table, roles, result, clusterNames: names, labels: state.labels, setAside: aside }) },
+    { name: `${base}-weak-labels.csv`, data: weakLabelsCsv({ table, roles, result, identities, labels: state.labels }) },
     { name: `${base}-provenance.json`, data: `${JSON.stringify(provenance, null, 2)}\n` },
     {
       name: `${base}-label-first.csv`,
-      data: labelFirstCsv(table, roles, labelFirstList({ labels: state.labels, confidence: result.confidence, classNames: names, setAside: aside, perKind: args.labelFirstPerKind })),
+      data: labelFirstCsv(table, roles, labelFirstList({ labels: state.labels, confidence: result.confidence, identities, perKind: args.labelFirstPerKind }), identities),
     },
   ];
   if (args.events) {
     const segments = eventSegments({
-      table, roles, labels: state.labels, confidence: result.confidence, classNames: names, setAside: aside,
+      table, roles, labels: state.labels, confidence: result.confidence, identities,
       options: typeof args.events === 'object' ? args.events : {},
     });
     files.push({ name: `${base}-events.tsv`, data: eventsTsv(segments) });

@@ -1,6 +1,7 @@
 import { formatNumber } from './csv';
 
 export interface ReportCluster {
+  /** The cluster's number (index + 1), as on screen and in every export. */
   id: number;
   name: string;
   className: string;
@@ -8,7 +9,7 @@ export interface ReportCluster {
   /** "#rrggbb" swatch ('' = none). */
   colour: string;
   setAside: boolean;
-  /** Composition flags, e.g. "subject-bound (top subject S07: 91%)". */
+  /** Composition flags with their reasons, e.g. "subject-bound: …; subject S07 holds 91% of its 240 windows". */
   flags: string[];
   description?: string;
 }

@@ -2,6 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { edfAnnotationFiles } from '../../../src/core/export/edf-annotations';
 import { EVENTS_TSV_HEADER, eventsTsv } from '../../../src/core/export/events-tsv';
 import { eventSegments } from '../../../src/core/export/segments';
+import { clusterIdentities } from '../../../src/core/export/run-model';
+import { emptyNote } from '../../../src/core/curation/initial-state';
 import { epochFromCivil } from '../../../src/core/raw/civil-time';
 import { bytesSource } from '../../../src/core/raw/byte-source';
 import { openEdf } from '../../../src/core/raw/edf/read';
@@ -37,37 +39,41 @@ const roles: Roles = [
 // By start, S01: 100 c0, 105 c0, 110 c0, 115 c1, 120 c2 (set aside), 130 c1; S02: c0 c0 c1.
 const labels = Int32Array.from([0, 0, 0, 1, 1, 2, 0, 0, 1]);
 const confidence = Float32Array.from([0.5, 1, 0.25, 0.5, 0.5, 0.5, 1, 0.5, 0.75]);
-const classNames = ['walking', '', ''];
-const setAside = [false, false, true];
+/** Cluster 1 (index 0) is the class "walking", 2 a candidate, 3 set aside. */
+function identitiesOf(l: Int32Array, aside = true) {
+  const clusters = [{ ...emptyNote(), className: 'walking' }, emptyNote(), { ...emptyNote(), setAside: aside }];
+  return clusterIdentities({ state: { labels: l, clusters } });
+}
+const identities = identitiesOf(labels);
 
 describe('eventSegments', () => {
   it('merges consecutive windows of one class per subject and session; set-aside windows and gaps break segments', () => {
-    const segs = eventSegments({ table, roles, labels, confidence, classNames, setAside });
+    const segs = eventSegments({ table, roles, labels, confidence, identities });
     expect(segs.map((s) => [s.subject, s.session, s.onset, s.duration, s.trialType, s.windows])).toEqual([
       ['S01', '', 0, 15, 'walking', 3],
-      ['S01', '', 15, 5, 'cluster_1', 1],
-      ['S01', '', 30, 5, 'cluster_1', 1],
+      ['S01', '', 15, 5, 'candidate 2', 1],
+      ['S01', '', 30, 5, 'candidate 2', 1],
       ['S02', 'a', 0, 5, 'walking', 2],
-      ['S02', 'a', 5, 2.5, 'cluster_1', 1],
+      ['S02', 'a', 5, 2.5, 'candidate 2', 1],
     ]);
     expect(segs[0].meanConfidence).toBeCloseTo((0.5 + 1 + 0.25) / 3, 6);
   });
 
   it('leaves candidates out when asked, and joins across a gap up to maxGap', () => {
-    const segs = eventSegments({ table, roles, labels, confidence, classNames, setAside: [false, false, false], options: { includeCandidates: false } });
+    const segs = eventSegments({ table, roles, labels, confidence, identities: identitiesOf(labels, false), options: { includeCandidates: false } });
     expect(segs.map((s) => s.trialType)).toEqual(['walking', 'walking']);
-    const joined = eventSegments({ table, roles, labels: new Int32Array(9), confidence, classNames, options: { maxGap: 5 } });
+    const joined = eventSegments({ table, roles, labels: new Int32Array(9), confidence, identities, options: { maxGap: 5 } });
     expect(joined.map((s) => [s.subject, s.duration])).toEqual([['S01', 35], ['S02', 7.5]]);
   });
 
   it('asks for a start column when the table has none', () => {
-    expect(() => eventSegments({ table, roles: roles.filter((r) => r.role !== 'start'), labels, confidence, classNames })).toThrow(/start column/);
+    expect(() => eventSegments({ table, roles: roles.filter((r) => r.role !== 'start'), labels, confidence, identities })).toThrow(/start column/);
   });
 });
 
 describe('eventsTsv(segments)', () => {
   it('follows the BIDS events rules: tab-separated, onset and duration (seconds) first, n/a for missing', () => {
-    const tsv = eventsTsv(eventSegments({ table, roles, labels, confidence, classNames, setAside }));
+    const tsv = eventsTsv(eventSegments({ table, roles, labels, confidence, identities }));
     const lines = tsv.split('\n');
     expect(lines.pop()).toBe('');
     const rows = lines.map((l) => l.split('\t'));
@@ -78,7 +84,7 @@ describe('eventsTsv(segments)', () => {
     expect(rows[0]).toEqual(EVENTS_TSV_HEADER);
     expect(rows.every((r) => r.length === EVENTS_TSV_HEADER.length)).toBe(true);
     expect(rows[1].slice(0, 5)).toEqual(['0', '15', 'walking', 'S01', 'n/a']); // no session column value: n/a
-    expect(rows[2].slice(0, 3)).toEqual(['15', '5', 'cluster_1']);
+    expect(rows[2].slice(0, 3)).toEqual(['15', '5', 'candidate 2']);
     expect(rows[4].slice(0, 5)).toEqual(['0', '5', 'walking', 'S02', 'a']);
     expect(rows[4][9]).toBe(String(T0));
     for (const r of rows.slice(1)) {
@@ -91,7 +97,7 @@ describe('eventsTsv(segments)', () => {
 
 describe('edfAnnotationFiles(segments)', () => {
   it('writes one EDF+C annotation file per subject that the project EDF+ reader reads back with identical onsets and texts', async () => {
-    const segs = eventSegments({ table, roles, labels, confidence, classNames, setAside });
+    const segs = eventSegments({ table, roles, labels, confidence, identities });
     const files = edfAnnotationFiles(segs);
     expect(files.map((f) => f.name)).toEqual(['sub-S01_annotations.edf', 'sub-S02_ses-a_annotations.edf']);
     for (const f of files) {

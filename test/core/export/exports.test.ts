@@ -5,6 +5,9 @@ import { clusterComposition } from '../../../src/core/export/cluster-composition
 import { mapCsv } from '../../../src/core/export/map-csv';
 import { buildProvenance } from '../../../src/core/export/provenance';
 import { weakLabelsCsv } from '../../../src/core/export/weak-labels';
+import { clusterIdentities } from '../../../src/core/export/run-model';
+import { emptyNote } from '../../../src/core/curation/initial-state';
+import type { ClusterNote } from '../../../src/core/curation/curation.types';
 import type { Roles } from '../../../src/core/table/roles.types';
 import type { Column, Table } from '../../../src/core/table/table';
 
@@ -47,51 +50,65 @@ const result: AnalysisResult = {
   metrics: { silhouette: 0.5, silhouetteSampleSize: 3 },
 };
 
-describe('weakLabelsCsv({ table, roles, result, clusterNames })', () => {
-  it('writes the weak-label columns from the roles, blank where a role has no column', () => {
-    const csv = weakLabelsCsv({ table, roles, result, clusterNames: ['walking'] });
+/** Identities of a curation given by its labels and partial notes (no table: no flags). */
+function identities(labels: Int32Array, notes: Partial<ClusterNote>[]) {
+  return clusterIdentities({ state: { labels, clusters: notes.map((n) => ({ ...emptyNote(), ...n })) } });
+}
+const named = identities(result.labels, [{ className: 'walking' }, {}]);
+
+describe('weakLabelsCsv({ table, roles, result, identities })', () => {
+  it('writes the weak-label columns from the roles, blank where a role has no column; clusters by number and name', () => {
+    const csv = weakLabelsCsv({ table, roles, result, identities: named });
     expect(csv.split('\n')).toEqual([
-      'window_id,subject,session,start,end,cluster,class_name,confidence,set_aside',
-      'a1,S01,,0,5,0,walking,0.75,0',
+      'window_id,subject,session,start,end,cluster,cluster_name,class_name,confidence,set_aside,flags',
+      'a1,S01,,0,5,1,walking,walking,0.75,0,',
       // RFC 4180 §2 rules 6-7: the comma and the quote force quoting, quotes doubled;
       // confidence to 4 significant digits.
-      '"a,2",S01,,5,10,0,walking,0.1235,0',
-      // end = start + duration, with enough digits for epoch seconds; cluster 1 is an unnamed candidate.
-      '"a""3",S02,,1700000000.25,1700000000.75,1,,1,0',
+      '"a,2",S01,,5,10,1,walking,walking,0.1235,0,',
+      // end = start + duration, with enough digits for epoch seconds; cluster 2 is an unnamed candidate.
+      '"a""3",S02,,1700000000.25,1700000000.75,2,candidate 2,,1,0,',
       '',
     ]);
   });
 
   it('writes curated labels and set_aside = 1 (with a blank class) for windows of a set-aside cluster', () => {
-    const csv = weakLabelsCsv({ table, roles, result, clusterNames: ['walking', 'noise'], labels: Int32Array.from([1, 0, 1]), setAside: [false, true] });
+    const labels = Int32Array.from([1, 0, 1]);
+    const csv = weakLabelsCsv({ table, roles, result, identities: identities(labels, [{ className: 'walking' }, { name: 'noise', setAside: true }]), labels });
     expect(csv.split('\n').slice(1, 4)).toEqual([
-      'a1,S01,,0,5,1,,0.75,1',
-      '"a,2",S01,,5,10,0,walking,0.1235,0',
-      '"a""3",S02,,1700000000.25,1700000000.75,1,,1,1',
+      'a1,S01,,0,5,2,noise,,0.75,1,',
+      '"a,2",S01,,5,10,1,walking,walking,0.1235,0,',
+      '"a""3",S02,,1700000000.25,1700000000.75,2,noise,,1,1,',
     ]);
+  });
+
+  it('writes each cluster\'s composition flags', () => {
+    const ids = named.map((id) => (id.index === 1 ? { ...id, flags: [{ column: 'pid', role: 'subject' as const, text: 'subject-bound', reason: 'r' }, { column: 'site', role: 'metadata' as const, text: 'site-bound', reason: 'r' }] } : id));
+    const lines = weakLabelsCsv({ table, roles, result, identities: ids }).split('\n');
+    expect(lines[3].split(',').at(-1)).toBe('subject-bound; site-bound');
+    expect(lines[1].split(',').at(-1)).toBe('');
   });
 
   it('adds placed (1 = placed from sampled neighbours) only when the run sampled', () => {
     const sampled = { ...result, placed: Uint8Array.from([0, 1, 0]) };
-    const lines = weakLabelsCsv({ table, roles, result: sampled, clusterNames: ['walking'] }).split('\n');
-    expect(lines[0]).toBe('window_id,subject,session,start,end,cluster,class_name,confidence,set_aside,placed');
+    const lines = weakLabelsCsv({ table, roles, result: sampled, identities: named }).split('\n');
+    expect(lines[0]).toBe('window_id,subject,session,start,end,cluster,cluster_name,class_name,confidence,set_aside,flags,placed');
     expect(lines.slice(1, 4).map((l) => l.split(',').at(-1))).toEqual(['0', '1', '0']);
   });
 });
 
-describe('mapCsv({ table, roles, result })', () => {
-  it('writes id, subject, start, end, map coordinates, cluster and confidence', () => {
-    const lines = mapCsv({ table, roles, result }).split('\n');
-    expect(lines[0]).toBe('id,subject,start,end,x,y,cluster,confidence');
-    expect(lines[1]).toBe('a1,S01,0,5,0.5,-0.25,0,0.75');
+describe('mapCsv({ table, roles, result, identities })', () => {
+  it('writes id, subject, start, end, map coordinates, cluster number and name, and confidence', () => {
+    const lines = mapCsv({ table, roles, result, identities: named }).split('\n');
+    expect(lines[0]).toBe('id,subject,start,end,x,y,cluster,cluster_name,confidence');
+    expect(lines[1]).toBe('a1,S01,0,5,0.5,-0.25,1,walking,0.75');
     // Float32 1/3 printed to 7 significant digits; -0 as 0; confidence to 4 digits.
-    expect(lines[2]).toBe('"a,2",S01,5,10,0.3333333,2,0,0.1235');
-    expect(lines[3]).toBe('"a""3",S02,1700000000.25,1700000000.75,0,1e-9,1,1');
+    expect(lines[2]).toBe('"a,2",S01,5,10,0.3333333,2,1,walking,0.1235');
+    expect(lines[3]).toBe('"a""3",S02,1700000000.25,1700000000.75,0,1e-9,2,candidate 2,1');
   });
 
   it('uses the row index as id when no column has the id role', () => {
     const noId = roles.filter((r) => r.role !== 'id');
-    const lines = mapCsv({ table, roles: noId, result }).split('\n');
+    const lines = mapCsv({ table, roles: noId, result, identities: named }).split('\n');
     expect(lines.slice(1, 4).map((l) => l.split(',')[0])).toEqual(['0', '1', '2']);
   });
 });
@@ -119,7 +136,7 @@ describe('buildProvenance(...)', () => {
   it('records input hash, roles, recipe, algorithms with parameters and seed, version, time and cautions', () => {
     const p = buildProvenance({
       input: { fileName: 'w.csv', sha256: 'ab'.repeat(32), rows: 3, features: 1 },
-      roles, params, result, clusterNames: ['walking'], appVersion: '0.1.0', createdAt: '2025-01-02T03:04:05.000Z',
+      roles, params, result, identities: named, appVersion: '0.1.0', createdAt: '2025-01-02T03:04:05.000Z',
     });
     expect(p).toMatchObject({
       app: { name: 'Gleaner', version: '0.1.0' },
@@ -129,7 +146,10 @@ describe('buildProvenance(...)', () => {
       embed: { method: 'pca', components: 2, seed: 42 },
       cluster: { method: 'kmeans', k: 2, restarts: 3, init: 'k-means++', maxIterations: 100, seed: 42 },
       seed: 42,
-      clusters: [{ id: 0, size: 2, className: 'walking' }, { id: 1, size: 1, className: '' }],
+      clusters: [
+        { number: 1, name: 'walking', size: 2, className: 'walking', setAside: false, flags: [] },
+        { number: 2, name: 'candidate 2', size: 1, className: '', setAside: false, flags: [] },
+      ],
       cautions: CAUTIONS,
     });
     expect(p.roles).toContainEqual({ column: 'pid', role: 'subject' });
