@@ -31,7 +31,7 @@ describe('bin/gleaner.js (built CLI)', () => {
     const r = gleaner(['analyze', join(ROOT, 'demo-data/windows.csv'), '--k', '3', '--restarts', '1', '--out', 'out'], dir);
     expect(r.stderr).toBe('');
     expect(r.status).toBe(0);
-    expect(readFileSync(join(dir, 'out/windows.csv'), 'utf8').split('\n')[0]).toBe('id,subject,start,end,x,y,cluster,confidence');
+    expect(readFileSync(join(dir, 'out/windows.csv'), 'utf8').split('\n')[0]).toBe('id,subject,start,end,x,y,cluster,cluster_name,confidence');
     expect(JSON.parse(readFileSync(join(dir, 'out/summary.json'), 'utf8')).cluster.k).toBe(3);
   });
 

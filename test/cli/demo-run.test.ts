@@ -20,10 +20,10 @@ interface Summary {
   metrics: { silhouette: number; silhouetteSampleSize: number; subjectNMI: number; cramersV: number; subjectChiSquare: { statistic: number; dof: number; pValue: number } };
   subjectBoundRule: { maxEffectiveShare: number; minWindows: number; cohortEffectiveSubjects: number; text: string };
   clusters: {
-    id: number; size: number; topSubject: string; topSubjectShare: number; subjects: number; effectiveSubjects: number;
+    number: number; name: string; size: number; topSubject: string; topSubjectShare: number; subjects: number; effectiveSubjects: number;
     subjectEntropy: number; subjectBound: boolean; subjectBoundReason: string; bySubject: { subject: string; windows: number }[];
   }[];
-  compositions: { column: string; nmi: number; cramersV: number | null; clusters: { id: number; top: string; topShare: number; effectiveValues: number; entropy: number; bound: boolean; boundReason: string }[] }[];
+  compositions: { column: string; nmi: number; cramersV: number | null; clusters: { number: number; top: string; topShare: number; effectiveValues: number; entropy: number; bound: boolean; boundReason: string }[] }[];
   labelAgreement: { column: string; labelledWindows: number; totalWindows: number; note: string; ari: number; nmi: number; purity: number; contingency: { counts: number[][] } };
   cautions: string[];
 }
@@ -55,7 +55,7 @@ beforeAll(() => {
 describe('gleaner analyze on the demo windows, k = 7 (the number of true activities)', () => {
   it('writes windows.csv with the documented header, one row per window, and a summary', () => {
     const { header, rows } = readRows(join(outA, 'windows.csv'));
-    expect(header).toEqual(['id', 'subject', 'start', 'end', 'x', 'y', 'cluster', 'confidence']);
+    expect(header).toEqual(['id', 'subject', 'start', 'end', 'x', 'y', 'cluster', 'cluster_name', 'confidence']);
     const summary = JSON.parse(readFileSync(join(outA, 'summary.json'), 'utf8')) as Summary;
     expect(rows).toHaveLength(summary.input.rows);
     expect(summary.input.sha256).toMatch(/^[0-9a-f]{64}$/);
@@ -64,9 +64,11 @@ describe('gleaner analyze on the demo windows, k = 7 (the number of true activit
     expect(summary.cautions.join(' ')).toMatch(/not clinical findings or diagnoses/);
     expect(summary).not.toHaveProperty('createdAt');
     for (const r of rows) {
+      // Clusters are numbered 1..k (index + 1), as on screen, with their shown name beside.
       const cluster = Number(r[6]);
-      const confidence = Number(r[7]);
-      expect(Number.isInteger(cluster) && cluster >= 0 && cluster < 7).toBe(true);
+      const confidence = Number(r[8]);
+      expect(Number.isInteger(cluster) && cluster >= 1 && cluster <= 7).toBe(true);
+      expect(r[7]).toBe(`candidate ${cluster}`);
       expect(confidence >= 0 && confidence <= 1).toBe(true);
     }
     expect(stdoutA).toMatch(/in 7 clusters/);
@@ -130,7 +132,7 @@ describe('gleaner analyze on the demo windows, k = 7 (the number of true activit
     // The summary's per-subject counts agree with windows.csv, window for window.
     for (const c of summary.clusters) {
       for (const e of c.bySubject) {
-        const n = rows.filter((r) => r[6] === String(c.id) && r[1] === e.subject).length;
+        const n = rows.filter((r) => r[6] === String(c.number) && r[1] === e.subject).length;
         expect(n).toBe(e.windows);
       }
     }
@@ -149,7 +151,7 @@ describe('gleaner analyze on the demo windows, k = 7 (the number of true activit
     expect(summary.subjectBoundRule).toMatchObject({ maxEffectiveShare: 0.35, minWindows: 20 });
     expect(summary.subjectBoundRule.cohortEffectiveSubjects).toBeGreaterThan(11); // 12 volunteers, near-even
     for (const c of summary.clusters) {
-      expect(c.subjectBound, c.subjectBoundReason).toBe(looseShare(c.id) >= 0.9);
+      expect(c.subjectBound, c.subjectBoundReason).toBe(looseShare(c.number) >= 0.9);
       expect(c.subjectBoundReason).toMatch(/effective subjects against \d+\.\d in the cohort/);
       expect(c.subjectEntropy >= 0 && c.subjectEntropy <= 1).toBe(true);
       // Normalized entropy is ln(effective subjects) / ln(12 subjects) (definition in cluster-mix.ts).

@@ -45,7 +45,7 @@ describe('gleaner analyze: embedding and clustering flags', () => {
     expect(runCli(['analyze', input, '--k', '4', '--progress', 'none', '--out', a]).status).toBe(0);
     expect(runCli(['analyze', input, '--k', '4', '--progress', 'none', '--out', b, '--embed', 'pca', '--cluster', 'kmeans', '--space', 'features']).status).toBe(0);
     for (const f of ['windows.csv', 'summary.json']) expect(readFileSync(join(b, f)).equals(readFileSync(join(a, f)))).toBe(true);
-    expect(readFileSync(join(a, 'windows.csv'), 'utf8').split('\n')[0]).toBe('id,subject,start,end,x,y,cluster,confidence');
+    expect(readFileSync(join(a, 'windows.csv'), 'utf8').split('\n')[0]).toBe('id,subject,start,end,x,y,cluster,cluster_name,confidence');
   });
 
   it('--embed tsne --perplexity --iterations: the parameters and the map quality land in summary.json', () => {
@@ -55,15 +55,15 @@ describe('gleaner analyze: embedding and clustering flags', () => {
     expect(summary.embed.trustworthiness).toBeGreaterThan(0.8);
     expect(summary.embed.trustworthiness).toBeLessThanOrEqual(1);
     expect(summary.embed.neighbourhoodPreservation).toBeGreaterThan(10 / 304);
-    expect(rows[0]).toEqual(['id', 'subject', 'start', 'end', 'x', 'y', 'cluster', 'confidence']);
+    expect(rows[0]).toEqual(['id', 'subject', 'start', 'end', 'x', 'y', 'cluster', 'cluster_name', 'confidence']);
     expect(rows).toHaveLength(305);
   });
 
   it('--embed umap with --sample-above: a placed column (1 for placed windows) and the sampling in summary.json', () => {
     const { summary, rows } = run(['--embed', 'umap', '--neighbors', '10', '--min-dist', '0.2', '--metric', 'cosine', '--sample-above', '150']);
     expect(summary.embed).toMatchObject({ method: 'umap', neighbors: 10, minDist: 0.2, metric: 'cosine', sampleSize: 150, sampling: { threshold: 150, embedded: 150, placed: 154, stratifiedBy: 'subject' } });
-    expect(rows[0][8]).toBe('placed');
-    const placed = rows.slice(1).map((r) => r[8]);
+    expect(rows[0][9]).toBe('placed');
+    const placed = rows.slice(1).map((r) => r[9]);
     expect(new Set(placed)).toEqual(new Set(['0', '1']));
     expect(placed.filter((v) => v === '1')).toHaveLength(154);
   });
@@ -82,16 +82,17 @@ describe('gleaner analyze: embedding and clustering flags', () => {
     const c = summary.cluster as { method: string; k: number; clusters: number; noise: number; noiseCluster: number | null; stability: number[]; minSamples: number };
     expect(c.method).toBe('hdbscan');
     expect(c.minSamples).toBe(10);
-    expect(rows[0]).toEqual(['id', 'subject', 'start', 'end', 'x', 'y', 'cluster', 'confidence', 'noise']);
+    expect(rows[0]).toEqual(['id', 'subject', 'start', 'end', 'x', 'y', 'cluster', 'cluster_name', 'confidence', 'noise']);
     const body = rows.slice(1);
-    const noise = body.filter((r) => r[8] === '1');
+    const noise = body.filter((r) => r[9] === '1');
     expect(noise).toHaveLength(c.noise);
     expect(c.noise).toBeGreaterThan(0);
-    expect(c.noiseCluster).toBe(c.clusters);
+    // Clusters are written by number (index + 1): the noise cluster is the last, number k.
+    expect(c.noiseCluster).toBe(c.clusters + 1);
     expect(c.k).toBe(c.clusters + 1);
-    expect(noise.every((r) => Number(r[6]) === c.noiseCluster && Number(r[7]) === 0)).toBe(true);
+    expect(noise.every((r) => Number(r[6]) === c.noiseCluster && Number(r[8]) === 0)).toBe(true);
     // Dense clusters are numbered by size, largest first; each has a positive stability.
-    const sizes = Array.from({ length: c.clusters }, (_, j) => body.filter((r) => Number(r[6]) === j).length);
+    const sizes = Array.from({ length: c.clusters }, (_, j) => body.filter((r) => Number(r[6]) === j + 1).length);
     expect(sizes.every((s, j) => s >= 10 && (j === 0 || s <= sizes[j - 1]))).toBe(true);
     expect(c.stability).toHaveLength(c.clusters);
     expect(c.stability.every((s) => s > 0)).toBe(true);
