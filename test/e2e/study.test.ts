@@ -206,7 +206,7 @@ describe('study file, end to end', () => {
     const [cl, cn, sa] = ['cluster', 'class_name', 'set_aside'].map((c) => header.indexOf(c));
     expect(rows).toHaveLength(DEMO_WINDOWS);
     rows.forEach((r, i) => {
-      expect(Number(r[cl])).toBe(restored.labels[i]);
+      expect(Number(r[cl])).toBe(restored.labels[i] + 1); // numbered index + 1, as on screen
       expect(r[sa]).toBe(restored.labels[i] === 2 ? '1' : '0');
       expect(r[cn]).toBe(restored.labels[i] === 0 ? 'walking' : restored.labels[i] === 1 ? 'stairs' : '');
     });
