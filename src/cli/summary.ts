@@ -3,7 +3,9 @@ import { CAUTIONS } from '../core/cautions';
 import type { ColumnComposition } from '../core/composition/compose-column';
 import type { LabelAgreement } from '../core/composition/label-agreement';
 import type { ClusterComposition, SubjectComposition } from '../core/export/cluster-composition';
+import type { StabilityResult } from '../core/stability/stability';
 import type { Roles } from '../core/table/roles.types';
+import { stabilityRule, withStability } from './stability-option';
 
 export interface SummaryInput {
   input: { path: string; fileName: string; sha256: string; rows: number; features: number; featureNames: string[] };
@@ -18,6 +20,8 @@ export interface SummaryInput {
   compositions?: ColumnComposition[];
   /** Agreement with a partial label column, on its labelled windows only. */
   labelAgreement?: LabelAgreement | null;
+  /** Stability across subjects (--stability), when asked for. */
+  stability?: StabilityResult;
   version: string;
 }
 
@@ -74,7 +78,9 @@ export function buildSummary(s: SummaryInput): Record<string, unknown> {
       text: ruleText(subjects.subjectBoundRule),
     };
   }
-  out.clusters = s.composition;
+  const { stability } = s;
+  if (stability) out.stabilityRule = stabilityRule(stability);
+  out.clusters = stability ? s.composition.map((c) => withStability(c, stability)) : s.composition;
   if (s.compositions && s.compositions.length > 0) out.compositions = s.compositions.map(composed);
   if (s.labelAgreement) out.labelAgreement = s.labelAgreement;
   out.cautions = CAUTIONS;
