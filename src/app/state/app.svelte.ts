@@ -78,7 +78,11 @@ export class AppState {
   async openDemo(runAfter: boolean): Promise<void> {
     try {
       const file = await this.host.loadDemo();
-      if ((await this.openFile(file)) && runAfter) await this.runAnalysis();
+      if ((await this.openFile(file)) && runAfter) {
+        await this.runAnalysis();
+        // The demo opens as a finished study: its first run is part of opening it, not a change.
+        if (this.study.run) this.studyFile.markClean();
+      }
     } catch (err) {
       this.status.fail('Could not load the demo study', describeError(err, 'demo study'), 'Nothing was opened.');
     }
