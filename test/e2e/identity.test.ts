@@ -46,7 +46,7 @@ async function exportAll(page: Page, h: Harness, step: string): Promise<Map<stri
     const box = page.getByLabel(label);
     if (await box.isChecked()) await box.uncheck();
   }
-  const [zip] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Export to a folder…' }).click()]);
+  const [zip] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Download ZIP' }).click()]);
   const path = join(h.tempDir, `export-${step}.zip`);
   await zip.saveAs(path);
   return new Map(readZip(new Uint8Array(readFileSync(path))).map((e) => [e.name, Buffer.from(e.data)]));

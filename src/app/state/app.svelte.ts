@@ -2,11 +2,8 @@ import type { AnalysisPartial } from '../../core/analysis.types';
 import type { Host, InputFile } from '../../host/host';
 import type { JobClient, RunningJob } from '../../worker/client';
 import type { Jobs, ParseResult } from '../../worker/jobs';
-import { version } from '../../../package.json';
 import { featureMatrix } from '../../core/table/matrix';
-import { isoNow } from '../lib/clock';
 import { describeError, isCancelled } from '../lib/errors';
-import { weakLabelFiles } from '../lib/export-files';
 import { ownBuffer } from '../lib/hash';
 import { QualityState } from './quality.svelte';
 import { Curation } from './curation.svelte';
@@ -187,25 +184,6 @@ export class AppState {
     };
     job.result.then(release, release);
     return job;
-  }
-
-  async exportLabels(): Promise<void> {
-    const { table, source, run } = this.study;
-    const state = this.curation.state;
-    if (!table || !source || !run || !state) return;
-    try {
-      const files = weakLabelFiles({
-        source, table, run, state,
-        identities: this.curation.identities,
-        appVersion: version,
-        createdAt: isoNow(),
-      });
-      const outcome = await this.host.saveFiles(source.fileName, files);
-      if (outcome) this.status.finish(`Exported ${outcome.names.join(' and ')} to ${outcome.location}.`);
-      else this.status.finish('Export cancelled.');
-    } catch (err) {
-      this.status.fail('Export failed', describeError(err, source.fileName), 'Nothing was exported.');
-    }
   }
 
   /** Jobs started by name since start (the test hook shows them). */
