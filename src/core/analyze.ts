@@ -2,7 +2,7 @@ import type { AnalysisParams, AnalysisResult, FeatureMatrix } from './analysis.t
 import { OptionError } from './errors';
 import type { JobContext } from './job';
 import { sampleIndices } from './metrics/sample';
-import { mean, silhouetteSamples } from './metrics/silhouette';
+import { silhouetteOfSample } from './metrics/silhouette';
 import { pipelineChoices, requestedK, type PipelineChoices } from './pipeline/choices';
 import { clusterStage } from './pipeline/cluster-stage';
 import { embedStage } from './pipeline/embed-stage';
@@ -95,13 +95,7 @@ export async function analyze(matrix: FeatureMatrix, params: AnalysisParams, ctx
   stage('silhouette', 0);
   const sample = sampleIndices(n, params.silhouetteSample, random);
   const m = sample.length;
-  const sampled = new Float64Array(m * d);
-  const sampledLabels = new Int32Array(m);
-  for (let s = 0; s < m; s++) {
-    sampled.set(data.subarray(sample[s] * d, sample[s] * d + d), s * d);
-    sampledLabels[s] = labels[sample[s]];
-  }
-  const silhouette = mean(silhouetteSamples({ data: sampled, n: m, d }, sampledLabels));
+  const silhouette = silhouetteOfSample(data, d, sample, labels);
   stage('silhouette', 1);
 
   return {

@@ -11,6 +11,7 @@ import { tableStability, type StabilityOptions, type StabilityResult, type Stabi
 import type { Roles } from '../core/table/roles.types';
 import type { Table } from '../core/table/table';
 import type { JobHandler } from './host';
+import { silhouetteJob, type SilhouetteJob, type SilhouetteResult } from './silhouette-job';
 import { recutJob, type RecutJob, type RecutResult } from './recut-job';
 import { splitCluster, type SplitJob } from './split-cluster';
 import { sweepJob, type SweepJob } from './sweep-job';
@@ -82,6 +83,10 @@ export function createJobs(deps: JobsDeps = {}) {
     /** Each cluster's stability across subjects: the run again on resamples that leave subjects out. */
     async stability(payload: StabilityJob, ctx: JobContext): Promise<StabilityResult> {
       return tableStability(payload.table, payload.roles, payload.params, payload.run, payload.options, ctx);
+    },
+    /** Mean silhouette of curated labels (after a merge, split or move). */
+    async silhouette(payload: SilhouetteJob, ctx: JobContext): Promise<SilhouetteResult> {
+      return silhouetteJob(payload, ctx);
     },
     /** Confidence and cluster means of a new cut of the tree (the Tree view's cut line). */
     async recut(payload: RecutJob, ctx: JobContext): Promise<RecutResult> {

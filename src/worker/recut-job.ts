@@ -4,6 +4,7 @@ import { OptionError } from '../core/errors';
 import type { JobContext } from '../core/job';
 import { clusterMeans } from '../core/pipeline/cluster-stage';
 import { recipeData } from './recipe-data';
+import { labelsSilhouette } from './silhouette-job';
 
 export interface RecutJob {
   /** The run's feature matrix (before its recipe) and parameters. */
@@ -16,6 +17,9 @@ export interface RecutJob {
 }
 
 export interface RecutResult {
+  /** Mean silhouette of the new cut (the run's sample size, its own seeded sample). */
+  silhouette: number;
+  silhouetteSampleSize: number;
   confidence: Float32Array;
   /** k × d means of the scaled features. */
   centroids: Float64Array;
@@ -23,7 +27,8 @@ export interface RecutResult {
 
 /**
  * What a new cut of the tree changes besides the labels: per-window confidence (1 − d1/d2 to the
- * cluster means in the clustered space, as the run computes it) and the cluster means.
+ * cluster means in the clustered space, as the run computes it), the cluster means and the mean
+ * silhouette of the new cut.
  */
 export async function recutJob(job: RecutJob, ctx: JobContext): Promise<RecutResult> {
   const { matrix, params, labels, coords } = job;
@@ -39,5 +44,6 @@ export async function recutJob(job: RecutJob, ctx: JobContext): Promise<RecutRes
   const dx = map ? 2 : d;
   const centroids = clusterMeans(data, n, d, labels, k);
   const confidence = centreConfidence(x, n, dx, map ? clusterMeans(x, n, dx, labels, k) : centroids, k);
-  return { confidence, centroids };
+  ctx.progress('silhouette', 0.75);
+  return { confidence, centroids, ...labelsSilhouette(data, n, d, labels, params) };
 }

@@ -155,6 +155,10 @@ describe('one identity per cluster, on screen and in the export', () => {
     await page.getByLabel(`Select cluster ${b}`).check();
     await page.getByRole('button', { name: 'Merge 2 ticked' }).click();
     await expect.poll(() => rowsLocator(page).count()).toBe(7);
+    // Nothing stale: the silhouette is measured again on the curated clusters (a different figure).
+    const runSilhouette = (await page.getByTestId('silhouette').textContent())!;
+    await expect.poll(() => page.getByTestId('silhouette').textContent(), { timeout: 60_000 }).toMatch(/^mean silhouette -?\d\.\d\d \(of the curated clusters\)$/);
+    expect(runSilhouette).not.toContain('curated');
     const merged = await screenEqualsExport(page, h, 'merge');
     expect(merged.map((r) => r.number)).toContain(a);
     expect(merged.map((r) => r.number)).not.toContain(b);
@@ -191,6 +195,8 @@ describe('one identity per cluster, on screen and in the export', () => {
     await expect.poll(() => status.textContent(), { timeout: 60_000 }).toMatch(/Tree cut into \d+ clusters/);
     const cutK = Number((await status.textContent())!.match(/Tree cut into (\d+) clusters/)![1]);
     await expect.poll(() => rowsLocator(page).count()).toBe(cutK);
+    // The new cut's silhouette is measured, not the old cut's carried over.
+    await expect.poll(() => page.getByTestId('silhouette').textContent(), { timeout: 60_000 }).toMatch(/^mean silhouette -?\d\.\d\d$/);
     await screenEqualsExport(page, h, 'recut');
     expect(h.pageErrors).toEqual([]);
   });

@@ -73,7 +73,8 @@ export class TreeCut {
     for (let i = 0; i < labels.length; i++) sizes[labels[i]]++;
     const old = run.result.cluster;
     const cluster: ClusterRecord = { method: 'hierarchical', linkage: old.linkage, k, path: old.path, space: old.space };
-    const result: AnalysisResult = { ...run.result, labels, sizes, cluster };
+    // The silhouette belongs to the old cut: unknown (NaN, sample 0) until the worker measures this one (commit).
+    const result: AnalysisResult = { ...run.result, labels, sizes, cluster, metrics: { ...run.result.metrics, silhouette: NaN, silhouetteSampleSize: 0 } };
     const next: Run = { ...run, result, params: { ...run.params, k, cluster: { method: old.linkage, k } } };
     this.replace(run, next);
   }
@@ -95,9 +96,9 @@ export class TreeCut {
     });
     this.newest.start(job);
     try {
-      const { confidence, centroids } = await job.result;
+      const { confidence, centroids, silhouette, silhouetteSampleSize } = await job.result;
       if (study.run !== run) return; // the cut moved on, or another run is shown
-      this.replace(run, { ...run, result: { ...run.result, confidence, centroids } });
+      this.replace(run, { ...run, result: { ...run.result, confidence, centroids, metrics: { ...run.result.metrics, silhouette, silhouetteSampleSize } } });
       this.deps.status.finish(`Tree cut into ${run.result.cluster.k} clusters (${run.result.cluster.linkage}) · ${run.result.labels.length} windows`);
     } catch (err) {
       if (!isCancelled(err)) this.deps.status.fail('The new cut could not be completed', describeError(err, 'tree cut'), 'Confidence still shows the previous cut.');
