@@ -35,7 +35,7 @@ export interface ParseResult {
  * Shares of the parse job's progress: reading the bytes (text is split into rows on the way), then
  * parsing (columns built, Parquet/Arrow decoded, roles inferred, the table checked, the hash).
  */
-const READ_SHARE = 0.9;
+export const READ_SHARE = 0.9;
 
 /** Text is parsed this many bytes at a time, with progress and a cancel check in between. */
 const SLICE = 4 * 1024 * 1024;

@@ -41,6 +41,12 @@ export const ETA_DEFAULTS: Readonly<EtaOptions> = {
 
 interface Sample { t: number; f: number }
 
+/**
+ * History is kept at about this spacing (the newest report always counts): a caller reporting
+ * thousands of times a second (a kernel driven in-process by the CLI) keeps it short.
+ */
+const SAMPLE_MS = 100;
+
 export class EtaEstimator {
   private readonly o: EtaOptions;
   private stage: string | null = null;
@@ -68,14 +74,19 @@ export class EtaEstimator {
       this.ends = [];
       this.stageFirstEstimate = Infinity;
     }
-    this.samples.push({ t, f });
+    // The newest report is always the last sample; it replaces one kept less than SAMPLE_MS before.
+    const n = this.samples.length;
+    if (n >= 2 && t - this.samples[n - 2].t < SAMPLE_MS) this.samples[n - 1] = { t, f };
+    else this.samples.push({ t, f });
     while (this.samples.length > 2 && this.samples[1].t <= t - this.o.windowMs) this.samples.shift();
     const first = this.samples[0];
     const span = t - first.t;
     if (span < this.o.minWindowMs || f <= first.f) return;
     const rate = (f - first.f) / span;
     const end = t + (1 - f) / rate;
-    this.ends.push({ t, f: end });
+    const m = this.ends.length;
+    if (m >= 2 && t - this.ends[m - 2].t < SAMPLE_MS) this.ends[m - 1] = { t, f: end };
+    else this.ends.push({ t, f: end });
     if (this.stageFirstEstimate === Infinity) this.stageFirstEstimate = t;
     while (this.ends.length > 1 && this.ends[0].t < t - this.o.agreeMs) this.ends.shift();
   }

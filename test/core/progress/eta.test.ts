@@ -127,6 +127,15 @@ describe('EtaEstimator', () => {
     for (const [t, e] of shown) if (t > 50_100 && e !== null) expect(within(e, 60_000 - t, 0.3), `at ${t} ms`).toBe(true);
   });
 
+  it('a caller reporting every millisecond (an in-process kernel) gets the same steady answer', () => {
+    const END = 40_000;
+    const eta = new EtaEstimator(0);
+    for (let t = 1; t < 30_000; t++) eta.report(t, t / END, 'clustering');
+    const e = eta.at(30_000);
+    expect(e).not.toBeNull();
+    expect(within(e!, 10_000, 0.3)).toBe(true);
+  });
+
   it('a finished job shows no ETA', () => {
     const eta = new EtaEstimator(0);
     for (let t = 100; t <= 20_000; t += 100) eta.report(t, t / 20_000, 'embedding');
