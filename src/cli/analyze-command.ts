@@ -100,7 +100,7 @@ export async function analyzeCommand(opts: AnalyzeOptions, deps: AnalyzeDeps): P
 async function runJob(deps: AnalyzeDeps, payload: AnalyzeJob, transfer: ArrayBuffer[], label: string): Promise<AnalysisResult> {
   const running = deps.client.run('analyze', payload, {
     transfer,
-    onProgress: (p) => deps.progress.update(`${label}: ${p.stage}`, p.fraction),
+    onProgress: (p) => deps.progress.update(`${label}: ${p.stage}`, p.fraction, p.detail),
   });
   deps.onJob(running as RunningJob<unknown>);
   try {

@@ -113,7 +113,7 @@ export async function runStudy(opts: RunCommandOptions, deps: { progress: Progre
     const matrix = featureMatrix(input.table, run.roles);
     attachSubjects(matrix, input.table, run.roles);
     const ctx: JobContext = {
-      progress: (stage, f) => bar.update(`${run.id}: ${stage}`, f),
+      progress: (stage, f, detail) => bar.update(`${run.id}: ${stage}`, f, detail),
       checkpoint: () => new Promise((res, rej) => setImmediate(() => (deps.cancelled() ? rej(new CancelledError()) : res()))),
     };
     const result = await analyze(matrix, run.params as unknown as AnalysisParams, ctx).finally(() => bar.finish());

@@ -13,7 +13,7 @@ export interface StabilityDeps {
 /** --stability: the stability job on the worker, with its own progress bar; Ctrl-C cancels it. */
 export async function runStability(deps: StabilityDeps, payload: StabilityJob): Promise<StabilityResult> {
   const running = deps.client.run('stability', payload, {
-    onProgress: (p) => deps.progress.update(`stability: ${p.stage}`, p.fraction),
+    onProgress: (p) => deps.progress.update(`stability: ${p.stage}`, p.fraction, p.detail),
   });
   deps.onJob(running as RunningJob<unknown>);
   try {

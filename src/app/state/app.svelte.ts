@@ -2,6 +2,7 @@ import type { AnalysisPartial } from '../../core/analysis.types';
 import type { Host, InputFile } from '../../host/host';
 import type { JobClient, RunningJob } from '../../worker/client';
 import type { Jobs, ParseResult } from '../../worker/jobs';
+import { READ_SHARE } from '../../core/input/parse-input';
 import { featureMatrix } from '../../core/table/matrix';
 import { describeError, isCancelled } from '../lib/errors';
 import { ownBuffer } from '../lib/hash';
@@ -101,7 +102,8 @@ export class AppState {
       const bytes = 'blob' in file ? null : ownBuffer(file.bytes);
       job = this.client.run('parse', bytes ? { fileName: file.name, bytes } : { fileName: file.name, blob: (file as { blob: Blob }).blob }, {
         transfer: bytes ? [bytes.buffer] : [],
-        onProgress: (p) => this.status.progress(p.stage === 'reading' ? `reading ${mib(p.fraction * size)} of ${mib(size)}` : p.stage, p.fraction),
+        // Reading takes the first READ_SHARE of the parse job's bar: that much = every byte read.
+        onProgress: (p) => this.status.progress(p.stage, p.fraction, p.stage === 'reading' ? `${mib(Math.min(1, p.fraction / READ_SHARE) * size)} of ${mib(size)}` : p.detail),
       });
       this.current = job;
       const { table, roles, warnings, sha256 } = await job.result;
@@ -140,11 +142,10 @@ export class AppState {
     }
     const featureNames = matrix.featureNames;
     this.status.start(`Running ${runDescription(params)} on ${matrix.n} windows…`);
-    this.live.start(performance.now());
+    this.live.start();
     const job = this.client.run('analyze', { matrix, params, cacheKey: matrixKey(source.sha256, roles) }, {
       onProgress: (p) => {
-        this.status.progress(p.stage, p.fraction);
-        this.live.tick(performance.now(), p.fraction);
+        this.status.progress(p.stage, p.fraction, p.detail);
       },
       onPartial: (value) => {
         if (this.current === job) this.live.offer(value as AnalysisPartial);
