@@ -3,6 +3,14 @@ import type { FileToWrite } from '../../host/host';
 import { CAUTIONS } from '../../core/cautions';
 import { studyExports } from '../../core/export/study-exports';
 import { studyReportHtml, type ReportCluster, type ReportFigure } from '../../core/export/study-report';
+import { clusterInWords, embedInWords, reportFacts, reportMetrics, thousands } from '../../core/export/report-facts';
+import type { Recipe } from '../../core/recipe/recipe.types';
+import type { StudyRun } from '../../core/study/study.types';
+
+/** Feature columns the run used. */
+function featureCount(run: StudyRun): number {
+  return run.roles.filter((r) => r.role === 'feature').length;
+}
 import type { Study } from '../../core/study/study.types';
 import type { ViewFigure } from './figures';
 import { mapPng, mapSvg, type MapFigureInput } from './map-figure';
@@ -44,6 +52,8 @@ export async function exportDialogFiles(args: {
   choice: ExportChoice;
   map: MapFigureInput;
   clusters: ReportCluster[];
+  /** The silhouette the cluster list shows (the run's, or measured on the curated clusters). */
+  silhouette: { value: number; sampleSize: number; curated: boolean } | null;
   /** Figures the views drew for this run (app.figures). */
   figures?: ViewFigure[];
   appVersion: string;
@@ -55,13 +65,16 @@ export async function exportDialogFiles(args: {
   const files: FileToWrite[] = studyExports({
     study: doc, run: doc.activeRun, table: args.table, appVersion: args.appVersion, createdAt: args.createdAt, events: choice.events,
   });
-  const base = baseName(doc.inputs[run.input].fileName);
+  const input = doc.inputs[run.input];
+  const base = baseName(input.fileName);
   const map = mapSvg(args.map);
   const figures: ReportFigure[] = [{
     title: 'Map',
     svg: map.svg,
-    caption: map.shown < map.total ? `Sampled: ${map.shown} of ${map.total} windows drawn.` : `${map.total} windows.`,
+    caption: `${embedInWords(run.result.embed)}. Coloured by cluster (numbers and names as in the cluster table); seed ${String(run.params.seed)}; `
+      + (map.shown < map.total ? `a sample of ${thousands(map.shown)} of ${thousands(map.total)} windows drawn.` : `all ${thousands(map.total)} windows drawn.`),
   }];
+  const viewCaption = (title: string) => `${title}, drawn from the shown run (${clusterInWords(run.result.cluster)}; seed ${String(run.params.seed)}) with the curation applied.`;
   const drawn = choice.viewFigures ? (args.figures ?? []) : [];
   const titles = new Set(drawn.map((f) => f.title));
   const onScreen = choice.viewFigures ? viewFigures().filter((f) => !titles.has(f.title)) : [];
@@ -72,11 +85,11 @@ export async function exportDialogFiles(args: {
     const svg = f.svg();
     files.push({ name: `${base}-${slug(f.title)}.svg`, data: svg });
     files.push({ name: `${base}-${slug(f.title)}.png`, data: await svgToPng(svg, f.width, f.height) });
-    others.push({ title: f.title, svg });
+    others.push({ title: f.title, svg, caption: viewCaption(f.title) });
   }
   for (const f of onScreen) {
     files.push({ name: `${base}-${slug(f.title)}.svg`, data: f.svg });
-    others.push(f);
+    others.push({ ...f, caption: viewCaption(f.title) });
   }
   if (choice.report) {
     const provenanceFile = files.find((f) => f.name.endsWith('-provenance.json'));
@@ -88,9 +101,23 @@ export async function exportDialogFiles(args: {
         appVersion: args.appVersion,
         createdAt: args.createdAt,
         clusters: args.clusters,
-        metrics: { windows: args.table.nRows, k: run.result.cluster.k, 'mean silhouette': run.result.metrics.silhouette, seed: Number(run.params.seed) },
+        metrics: reportMetrics({
+          windows: run.result.labels.length,
+          clusters: args.clusters.length,
+          setAside: args.clusters.filter((c) => c.setAside).length,
+          silhouette: args.silhouette,
+          embed: run.result.embed,
+        }),
         figures: [...figures, ...others],
         cautions: CAUTIONS,
+        facts: reportFacts({
+          input: { fileName: input.fileName, sha256: input.sha256, rows: run.result.labels.length, features: featureCount(run) },
+          recipe: (run.params as { recipe?: Recipe }).recipe,
+          result: run.result,
+          seed: Number(run.params.seed),
+          appVersion: args.appVersion,
+          createdAt: args.createdAt,
+        }),
         provenance,
         notes: doc.notes,
       }),

@@ -36,3 +36,8 @@ export function toCsv(header: string[], rows: (string | number)[][]): string {
   }
   return `${lines.join('\n')}\n`;
 }
+
+/** 12345 → "12,345": a thousands separator for reading, whatever the machine's locale. */
+export function thousands(n: number): string {
+  return String(n).replace(/\B(?=(\d{3})+(?!\d))/g, ',');
+}

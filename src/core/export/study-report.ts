@@ -1,5 +1,4 @@
-import { formatNumber } from './csv';
-
+import { thousands } from './csv';
 export interface ReportCluster {
   /** The cluster's number (index + 1), as on screen and in every export. */
   id: number;
@@ -21,17 +20,33 @@ export interface ReportFigure {
   caption?: string;
 }
 
+/** One figure of the run, rounded for reading, with what it means. */
+export interface ReportMetric {
+  name: string;
+  /** The value as the reader should see it (rounded, with thousands separators). */
+  value: string;
+  /** What the number says, in a few words ("−1 to 1; higher = clusters further apart"). */
+  meaning: string;
+}
+
+/** One line of the provenance table: what the export was made from and how. */
+export interface ReportFact {
+  name: string;
+  value: string;
+}
+
 export interface StudyReportInput {
   title: string;
   appVersion: string;
   /** ISO 8601 time, from the caller's clock. */
   createdAt: string;
   clusters: ReportCluster[];
-  /** Run metrics (name → value), e.g. silhouette, subject NMI. */
-  metrics: Record<string, number | string>;
+  metrics: ReportMetric[];
   figures: ReportFigure[];
   cautions: readonly string[];
-  /** The provenance document (buildProvenance), shown as JSON. */
+  /** Provenance in words: input, recipe, map, clustering, seed, version. */
+  facts: ReportFact[];
+  /** The full provenance document (buildProvenance), attached folded at the end. */
   provenance: unknown;
   notes?: string;
 }
@@ -57,21 +72,23 @@ export function safeSvg(svg: string): string | null {
 const COLOUR = /^#[0-9a-f]{6}$/i;
 
 /**
- * A self-contained HTML study report: title, cautions, run metrics, the cluster table (names, class,
- * size, colour, composition flags), the caller's SVG figures and the provenance. Everything from
- * the study is escaped; no scripts, no external resources.
+ * A self-contained HTML study report: title, cautions, the run's figures rounded with their
+ * meaning, the cluster table (number, name, class, size, colour, composition flags), the caller's
+ * captioned SVG figures, the provenance as a table and the full provenance JSON folded at the end.
+ * Everything from the study is escaped; no scripts, no external resources.
  */
 export function studyReportHtml(r: StudyReportInput): string {
   const e = escapeHtml;
-  const metricRows = Object.entries(r.metrics).map(([k, v]) => `<tr><th scope="row">${e(k)}</th><td>${e(typeof v === 'number' ? formatNumber(v) || 'n/a' : v)}</td></tr>`);
+  const metricRows = r.metrics.map((m) => `<tr><th scope="row">${e(m.name)}</th><td class="num">${e(m.value)}</td><td class="meaning">${e(m.meaning)}</td></tr>`);
+  const factRows = r.facts.map((f) => `<tr><th scope="row">${e(f.name)}</th><td>${e(f.value)}</td></tr>`);
   const clusterRows = r.clusters.map((c) => {
     const swatch = COLOUR.test(c.colour) ? `<span class="swatch" style="background:${c.colour}"></span>` : '';
     return `<tr><td>${c.id}</td><td>${swatch}${e(c.name)}</td><td>${e(c.className || (c.setAside ? 'set aside' : 'candidate'))}</td>`
-      + `<td class="num">${c.size}</td><td>${e(c.flags.join('; '))}</td><td>${e(c.description ?? '')}</td></tr>`;
+      + `<td class="num">${thousands(c.size)}</td><td>${e(c.flags.join('; '))}</td><td>${e(c.description ?? '')}</td></tr>`;
   });
   const figures = r.figures.map((f) => {
     const svg = safeSvg(f.svg);
-    return `<figure><figcaption>${e(f.title)}</figcaption>${svg ?? '<p class="note">(figure left out: not a plain SVG)</p>'}${f.caption ? `<p>${e(f.caption)}</p>` : ''}</figure>`;
+    return `<figure><figcaption>${e(f.title)}</figcaption>${svg ?? '<p class="note">(figure left out: not a plain SVG)</p>'}${f.caption ? `<p class="caption">${e(f.caption)}</p>` : ''}</figure>`;
   });
   return `<!DOCTYPE html>
 <html lang="en">
@@ -84,17 +101,18 @@ body{font-family:system-ui,sans-serif;margin:2rem auto;max-width:60rem;padding:0
 table{border-collapse:collapse;margin:1rem 0}th,td{border:1px solid #ccc;padding:.25rem .5rem;text-align:left}
 td.num{text-align:right}.swatch{display:inline-block;width:.8em;height:.8em;margin-right:.4em;border:1px solid #888}
 .cautions{border-left:4px solid #e69f00;padding:.5rem 1rem;background:#fff8e6}pre{white-space:pre-wrap;font-size:.85em}
-figure{margin:1rem 0}figcaption{font-weight:600}
+figure{margin:1rem 0}figcaption{font-weight:600}.caption,.meaning{color:#555;font-size:.9em}details{margin:1rem 0}
 </style>
 </head>
 <body>
 <h1>${e(r.title)}</h1>
 <p>Gleaner ${e(r.appVersion)}, ${e(r.createdAt)}</p>
 <section class="cautions"><h2>Cautions</h2><ul>${r.cautions.map((c) => `<li>${e(c)}</li>`).join('')}</ul></section>
-${r.notes ? `<section><h2>Notes</h2><p>${e(r.notes)}</p></section>\n` : ''}<section><h2>Metrics</h2><table>${metricRows.join('')}</table></section>
+${r.notes ? `<section><h2>Notes</h2><p>${e(r.notes)}</p></section>\n` : ''}<section><h2>Run</h2><table><thead><tr><th>Figure</th><th>Value</th><th>What it says</th></tr></thead><tbody>${metricRows.join('')}</tbody></table></section>
 <section><h2>Clusters</h2><table><thead><tr><th>#</th><th>Name</th><th>Class</th><th>Windows</th><th>Flags</th><th>Description</th></tr></thead><tbody>${clusterRows.join('')}</tbody></table></section>
 <section><h2>Figures</h2>${figures.join('\n')}</section>
-<section><h2>Provenance</h2><pre>${e(JSON.stringify(r.provenance, null, 2))}</pre></section>
+<section><h2>Provenance</h2><table>${factRows.join('')}</table>
+<details><summary>The full provenance record (JSON, as in the exported provenance file)</summary><pre>${e(JSON.stringify(r.provenance, null, 2))}</pre></details></section>
 </body>
 </html>
 `;

@@ -7,10 +7,11 @@ describe('studyReportHtml', () => {
     appVersion: '1.2.3',
     createdAt: '2026-01-01T00:00:00Z',
     clusters: [
-      { id: 0, name: 'a & b', className: 'walking', size: 12, colour: '#e69f00', setAside: false, flags: ['subject-bound'] },
-      { id: 1, name: '"x"', className: '', size: 3, colour: 'red;background:url(x)', setAside: true, flags: [] },
+      { id: 1, name: 'a & b', className: 'walking', size: 12345, colour: '#e69f00', setAside: false, flags: ['subject-bound'] },
+      { id: 2, name: '"x"', className: '', size: 3, colour: 'red;background:url(x)', setAside: true, flags: [] },
     ],
-    metrics: { silhouette: 0.4321, subjectNMI: NaN },
+    metrics: [{ name: 'Mean silhouette', value: '0.43', meaning: '−1 to 1; higher = clusters further apart' }],
+    facts: [{ name: 'Seed', value: '7' }],
     figures: [
       { title: 'Map', svg: '<svg xmlns="http://www.w3.org/2000/svg"><circle r="2"/></svg>' },
       { title: 'Bad', svg: '<svg onload="alert(1)"></svg>' },
@@ -32,12 +33,15 @@ describe('studyReportHtml', () => {
     expect(html).toContain('<circle r="2"/>');
     expect(html).not.toContain('onload');
     expect(html).toContain('figure left out');
-    expect(html).toContain('<td>walking</td><td class="num">12</td><td>subject-bound</td>');
+    // Sizes with thousands separators; clusters by their number.
+    expect(html).toContain('<td>walking</td><td class="num">12,345</td><td>subject-bound</td>');
+    expect(html).toMatch(/<tr><td>1<\/td><td><span class="swatch"/);
     expect(html).toContain('set aside');
-    expect(html).toContain('<td>0.4321</td>');
-    expect(html).toContain('<td>n/a</td>');
+    // Figures rounded, with what they say; provenance as a table, the full JSON folded away.
+    expect(html).toContain('<th scope="row">Mean silhouette</th><td class="num">0.43</td><td class="meaning">−1 to 1; higher = clusters further apart</td>');
+    expect(html).toContain('<th scope="row">Seed</th><td>7</td>');
+    expect(html).toMatch(/<details><summary>[^<]*JSON[^<]*<\/summary><pre>[^<]*&quot;sha256&quot;: &quot;ab&quot;/);
     expect(html).toContain('Research aid, not a diagnosis.');
-    expect(html).toContain('&quot;sha256&quot;: &quot;ab&quot;');
   });
 
   it('escapeHtml and safeSvg', () => {
