@@ -1,3 +1,4 @@
+import { cellTimeText } from '../../core/table/time-text';
 import type { Role, Roles } from '../../core/table/roles.types';
 import { cellText, type Column, type Table } from '../../core/table/table';
 
@@ -36,9 +37,12 @@ export function describeWindow(table: Table, roles: Roles, row: number): { label
   const lines: { label: string; value: string }[] = [];
   const id = columnWithRole(table, roles, 'id');
   lines.push({ label: 'window', value: id ? cellText(id, row) : `row ${row + 2}` });
-  for (const [role, label] of [['subject', 'subject'], ['start', 'start']] as const) {
+  const subject = columnWithRole(table, roles, 'subject');
+  if (subject) lines.push({ label: 'subject', value: cellText(subject, row) || '(missing)' });
+  // Start and end in the one time format of the app (ISO 8601, UTC).
+  for (const role of ['start', 'end'] as const) {
     const c = columnWithRole(table, roles, role);
-    if (c) lines.push({ label, value: cellText(c, row) || '(missing)' });
+    if (c) lines.push({ label: role, value: cellTimeText(c, row) });
   }
   return lines;
 }

@@ -1,3 +1,4 @@
+import { timeText } from '../../core/table/time-text';
 import type { Roles } from '../../core/table/roles.types';
 import type { Column, Table } from '../../core/table/table';
 import { categoriesOf, columnWithRole } from '../lib/columns';
@@ -85,10 +86,9 @@ export function formatValue(v: number): string {
   return Math.abs(v) >= 1e5 || (v !== 0 && Math.abs(v) < 1e-3) ? v.toExponential(2) : String(Number(v.toPrecision(4)));
 }
 
-/** Start times: Unix seconds (or milliseconds) are shown as UTC date and time, other numbers as they are. */
+/** Start times on the legend, in the app's one time format (timeText; milliseconds columns in seconds first). */
 export function formatTime(v: number): string {
-  const ms = v > 1e11 ? v : v > 1e8 ? v * 1000 : NaN;
-  return Number.isNaN(ms) ? formatValue(v) : new Date(ms).toISOString().slice(0, 16).replace('T', ' ');
+  return timeText(v > 1e11 ? v / 1000 : v);
 }
 
 function columnColouring(column: Column, nRows: number, title: string, format?: (v: number) => string): Colouring {

@@ -1,4 +1,4 @@
-import { isoFromEpoch } from '../../../core/raw/civil-time';
+import { timeText } from '../../../core/table/time-text';
 import type { LinkWindow } from '../../../core/raw/link';
 import type { Roles } from '../../../core/table/roles.types';
 import { cellText, type Table } from '../../../core/table/table';
@@ -9,12 +9,10 @@ export interface TraceWindow {
   /** Row of the current result (the index the selection and the Map use). */
   index: number;
   link: LinkWindow;
-  /** Start as people read it (UTC date and time for Unix seconds, else seconds). */
+  /** Start in the app's one time format (timeText: ISO 8601 UTC, or seconds into a recording). */
   startText: string;
 }
 
-/** Unix seconds from 2001 on count as absolute times (smaller values are seconds into a recording). */
-const ABSOLUTE_FROM = 978_307_200;
 
 /**
  * The windows at the given result rows, or a sentence saying which column role is missing.
@@ -37,7 +35,7 @@ export function traceWindows(table: Table, roles: Roles, indices: readonly numbe
     return {
       index,
       link: { id: id ? cellText(id, r) : `row ${r + 2}`, subject: cellText(subject, r), ...(sess ? { session: sess } : {}), start: s, end: e },
-      startText: s >= ABSOLUTE_FROM ? isoFromEpoch(s).replace('T', ' ').replace(/(\.\d+)?Z$/, ' UTC') : `${s} s`,
+      startText: timeText(s),
     };
   });
 }
