@@ -25,6 +25,8 @@ export interface TreeCutCuration {
   labelsOf(run: Run): Int32Array;
   /** The shown run's cluster notes. */
   readonly clusters: readonly Readonly<ClusterNote>[];
+  /** Bumped by every curation change. */
+  readonly revision: number;
   /** What the study file records of a run's curation, and rebuilding it on a run. */
   recorded(run: Run): { actions: CurationAction[]; undone: CurationAction[] };
   restore(run: Run, recorded: { actions: CurationAction[]; undone: CurationAction[] }): void;
@@ -70,13 +72,14 @@ interface Anchor {
  * the Map, the cluster list and every view recolour at once; when the drag ends, the worker adds
  * the confidence and cluster means of the new cut (`commit`).
  *
- * Identities persist: every cut of one move (a drag, or one arrow key) is relabelled against the
- * run the move started from (`carryIdentities`), so each surviving cluster keeps its index (its
- * number and palette colour), and its notes (class and working name, colour, description, set
- * aside) are recorded as curation actions on the new run; going back to the starting cut within
- * the move shows the starting run itself, its curation and undo history whole. Clusters a re-cut
- * merged away are remembered per tree (in memory, not in the study file) and take their index and
- * notes back when a later cut gives back most of their windows.
+ * Identities persist: every cut is relabelled (`carryIdentities`) against the anchor, the run that
+ * was shown when the cut was first moved after the last curation change (drags and arrow keys in
+ * between are one move), so each surviving cluster keeps its index (its number and palette
+ * colour), and its notes (class and working name, colour, description, set aside) are recorded as
+ * curation actions on the new run; going back to the anchor's cut shows the anchor run itself, its
+ * curation and undo history whole. Clusters a re-cut merged away are remembered per tree (in
+ * memory, not in the study file) and take their index and notes back when a later cut gives back
+ * most of their windows.
  */
 export class TreeCut {
   /** The worker is computing confidence and means of the latest cut. */
@@ -84,10 +87,12 @@ export class TreeCut {
   /** Branches the Tree view drew last (the test hook reads it). */
   drawnBranches = $state(0);
   private readonly newest = new NewestJob<RecutResult>();
-  /** The run the current move of the cut started from (null between moves). */
+  /** The run the current move of the cut started from. */
   private anchor: Anchor | null = null;
   /** The run the latest cut of this move made (a different shown run starts a new move). */
   private latest: Run | null = null;
+  /** The curation's revision after the latest cut (a change since then starts a new move). */
+  private revisionAt = -1;
   /** Clusters re-cuts dropped, per tree, by index (not reactive: no view reads it). */
   private readonly memory = new WeakMap<MergeTree, Remembered[]>();
 
@@ -112,6 +117,7 @@ export class TreeCut {
       this.latest = anchor.run;
       const live = anchor.labels;
       this.memory.set(tree, (this.memory.get(tree) ?? []).filter((r) => !live.includes(r.index)));
+      this.revisionAt = this.deps.curation.revision;
       return true;
     }
     const leafLabels = cutTree(tree, { k: kk });
@@ -137,14 +143,8 @@ export class TreeCut {
     this.showCut(run, this.anchorFor(run), tree, labels, present.reduce((a, b) => a + b, 0));
   }
 
-  /** Ends the current move: the next cut carries identities from the run shown then. */
-  endMove(): void {
-    this.anchor = null;
-    this.latest = null;
-  }
-
   private anchorFor(run: Run): Anchor {
-    if (this.anchor && this.latest === run) return this.anchor;
+    if (this.anchor && this.latest === run && this.deps.curation.revision === this.revisionAt) return this.anchor;
     const { curation } = this.deps;
     this.anchor = { run, k: cutClusters(run), labels: curation.labelsOf(run), notes: curation.clusters.slice() };
     this.latest = run;
@@ -201,24 +201,30 @@ export class TreeCut {
     this.replace(run, next);
     this.latest = next;
     if (actions.length > 0) this.deps.curation.restore(next, { actions, undone: [] });
+    this.revisionAt = this.deps.curation.revision;
     const { status } = this.deps;
     if (!status.busy) status.message = `Tree cut into ${k} clusters (${old.linkage}) · confidence follows when the cut is let go`;
   }
 
   /** Asks the worker for the confidence and cluster means of the shown cut (after a drag ends). */
   async commit(): Promise<void> {
-    this.endMove();
     const { study } = this.deps;
     const run = study.run, table = study.table;
     if (!run || !table || run.result.cluster.method !== 'hierarchical') return;
     this.newest.cancel();
-    this.pending = true;
+    this.pending = false;
     const k = cutClusters(run);
     // The side panel follows the cut, so Run reproduces it.
     if (k <= PARAMS.k.panel.max) {
       this.deps.params.k = k;
       this.deps.params.cutBy = 'k';
     }
+    // Back at the anchor's cut: that run's confidence is the cut's already.
+    if (run === this.anchor?.run) {
+      this.deps.status.finish(`Tree cut into ${k} clusters (${run.result.cluster.linkage}) · ${run.result.labels.length} windows`);
+      return;
+    }
+    this.pending = true;
     const job = this.client.run('recut', {
       matrix: recipeInput(table, run.roles).matrix, params: run.params, labels: run.result.labels, coords: run.result.coords,
     });
@@ -226,7 +232,14 @@ export class TreeCut {
     try {
       const { confidence, centroids } = await job.result;
       if (study.run !== run) return; // the cut moved on, or another run is shown
-      this.replace(run, { ...run, result: { ...run.result, confidence, centroids } }, true);
+      const next: Run = { ...run, result: { ...run.result, confidence, centroids } };
+      const untouched = this.revisionAt === this.deps.curation.revision;
+      this.replace(run, next, true);
+      if (this.latest === run) {
+        this.latest = next;
+        // Still the same move unless the user curated while the job ran.
+        if (untouched) this.revisionAt = this.deps.curation.revision;
+      }
       this.deps.status.finish(`Tree cut into ${k} clusters (${run.result.cluster.linkage}) · ${run.result.labels.length} windows`);
     } catch (err) {
       if (!isCancelled(err)) this.deps.status.fail('The new cut could not be completed', describeError(err, 'tree cut'), 'Confidence still shows the previous cut.');
