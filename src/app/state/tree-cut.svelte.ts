@@ -56,6 +56,8 @@ export function cutClusters(run: Run | null | undefined): number {
 /** A dropped cluster an earlier re-cut of the same tree remembered: its windows and its notes. */
 interface Remembered extends RememberedCluster {
   note: Readonly<ClusterNote>;
+  /** The cluster that took this one's name when it was merged away (it had none of its own), or -1. */
+  adopter: number;
 }
 
 /** The run a move of the cut started from, with its curated labels and notes (identities carry from it). */
@@ -64,6 +66,8 @@ interface Anchor {
   k: number;
   labels: Int32Array;
   notes: readonly Readonly<ClusterNote>[];
+  /** The clusters remembered when the move began: every cut of the move starts from these. */
+  memory: readonly Remembered[];
 }
 
 /**
@@ -115,8 +119,7 @@ export class TreeCut {
       // Back where the move started: that run, with its curation as it was.
       this.replace(run, anchor.run);
       this.latest = anchor.run;
-      const live = anchor.labels;
-      this.memory.set(tree, (this.memory.get(tree) ?? []).filter((r) => !live.includes(r.index)));
+      this.memory.set(tree, anchor.memory.slice());
       this.revisionAt = this.deps.curation.revision;
       return true;
     }
@@ -146,13 +149,14 @@ export class TreeCut {
   private anchorFor(run: Run): Anchor {
     if (this.anchor && this.latest === run && this.deps.curation.revision === this.revisionAt) return this.anchor;
     const { curation } = this.deps;
-    this.anchor = { run, k: cutClusters(run), labels: curation.labelsOf(run), notes: curation.clusters.slice() };
+    const memory = run.result.tree ? (this.memory.get(run.result.tree) ?? []).slice() : [];
+    this.anchor = { run, k: cutClusters(run), labels: curation.labelsOf(run), notes: curation.clusters.slice(), memory };
     this.latest = run;
     return this.anchor;
   }
 
   private showCut(run: Run, anchor: Anchor, tree: MergeTree, cut: Int32Array, k: number): void {
-    const memory = (this.memory.get(tree) ?? []).slice();
+    const memory = anchor.memory.slice();
     const carried = carryIdentities(anchor.labels, cut, { remembered: memory });
     const { labels, slots } = carried;
     const sizes = new Int32Array(slots);
@@ -168,6 +172,12 @@ export class TreeCut {
       if (carried.origin[j] === 'kept') notes[index] = anchor.notes[index];
       else if (carried.origin[j] === 'remembered') notes[index] = memory.find((r) => r.index === index)?.note;
     });
+    // A remembered cluster back with its name: the cluster that held the name meanwhile gives it back.
+    carried.indexOf.forEach((index, j) => {
+      if (carried.origin[j] !== 'remembered') return;
+      const r = memory.find((m) => m.index === index), a = r ? notes[r.adopter] : undefined;
+      if (r && a && a.name === r.note.name && a.className === r.note.className) notes[r.adopter] = { ...a, name: '', className: '' };
+    });
     // Clusters merged away: remembered; a kept cluster without a user name takes the name of the
     // largest one merged into it, so no name the user gave is lost from the screen.
     const anchorSizes = new Int32Array(anchor.notes.length);
@@ -178,12 +188,11 @@ export class TreeCut {
       if (!note) continue;
       const windows: number[] = [];
       for (let i = 0; i < anchor.labels.length; i++) if (anchor.labels[i] === index) windows.push(i);
-      const at = memory.findIndex((r) => r.index === index);
-      memory.splice(at < 0 ? memory.length : at, 1, { index, windows: Int32Array.from(windows), note });
       const target = carried.indexOf[into], kept = notes[target];
-      if ((note.name || note.className) && !(kept?.name || kept?.className)) {
-        notes[target] = { ...(kept ?? emptyNote()), name: note.name, className: note.className };
-      }
+      const adopts = !!(note.name || note.className) && !(kept?.name || kept?.className);
+      if (adopts) notes[target] = { ...(kept ?? emptyNote()), name: note.name, className: note.className };
+      const at = memory.findIndex((r) => r.index === index);
+      memory.splice(at < 0 ? memory.length : at, 1, { index, windows: Int32Array.from(windows), note, adopter: adopts ? target : -1 });
     }
     // An index in use again is no longer a remembered one.
     const inUse = new Uint8Array(slots);

@@ -28,9 +28,9 @@ export function heightForClusters(tree: MergeTree, k: number): number {
 
 /** Drag rates of the cut line: pixels of drag per merge step (the Tree's "Drag" choice; the middle one is the default). */
 export const CUT_RATES: readonly { px: number; label: string }[] = [
-  { px: 4, label: 'fast (4 px per merge)' },
-  { px: 10, label: 'normal (10 px per merge)' },
-  { px: 24, label: 'fine (24 px per merge)' },
+  { px: 4, label: 'fast' },
+  { px: 10, label: 'normal' },
+  { px: 24, label: 'fine' },
 ];
 
 /**
