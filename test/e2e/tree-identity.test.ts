@@ -4,9 +4,11 @@
  * on the Tree and in the status bar during the drag) and stepped back to 8 with the arrow keys; a
  * cluster named at 12 comes back with its name when the cut returns to 12. After each cut the
  * exported weak labels (Export dialog) hold, for every row of the cluster list, exactly that many
- * windows under the same number and name. Reads the demo study from demo-data/.
+ * windows under the same number and name, and `gleaner run` on the saved study writes the same weak
+ * labels byte for byte. Reads the demo study from demo-data/.
  */
-import { readFileSync } from 'node:fs';
+import { execFileSync } from 'node:child_process';
+import { copyFileSync, mkdirSync, readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -48,6 +50,10 @@ function csvFields(line: string): string[] {
 
 /** Exports through the Export dialog and counts the weak labels' windows by (cluster number, cluster name). */
 async function exportedCounts(h: Harness, tag: string): Promise<Row[]> {
+  return (await exported(h, tag)).counts;
+}
+
+async function exported(h: Harness, tag: string): Promise<{ counts: Row[]; bytes: Uint8Array }> {
   const { page } = h;
   await page.getByRole('button', { name: 'Export…' }).click();
   const [zip] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Export to a folder…' }).click()]);
@@ -68,7 +74,7 @@ async function exportedCounts(h: Harness, tag: string): Promise<Row[]> {
     row.size++;
     counts.set(key, row);
   }
-  return [...counts.values()].sort((a, b) => a.number - b.number);
+  return { counts: [...counts.values()].sort((a, b) => a.number - b.number), bytes: entry!.data };
 }
 
 const byNumber = (rows: Row[]) => [...rows].sort((a, b) => a.number - b.number);
@@ -182,7 +188,22 @@ describe('identities across tree re-cuts, end to end', () => {
     expect(again12).toEqual(named12);
     expect(again12.find((r) => r.number === 3)).toEqual(walking12);
     expect(await hookOf(page)).toEqual({ name: 'walking', colour: CHOSEN });
-    expect(await exportedCounts(h, 'again12')).toEqual(again12);
+    const last = await exported(h, 'again12');
+    expect(last.counts).toEqual(again12);
+
+    // The saved study replays to the same weak labels in `gleaner run`, which cuts the tree again.
+    const dir = join(h.tempDir, 'cli');
+    mkdirSync(dir, { recursive: true });
+    const studyPath = join(dir, 'windows.gleaner');
+    const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: /^Save/ }).first().click()]);
+    await download.saveAs(studyPath);
+    copyFileSync(DEMO, join(dir, 'windows.csv'));
+    const out = join(dir, 'out');
+    execFileSync('node', ['--import', 'tsx', 'src/cli/main.ts', 'run', studyPath, '--out', out, '--progress', 'none'], { cwd: ROOT, stdio: 'pipe' });
+    const runs = readdirSync(out);
+    expect(runs).toHaveLength(1);
+    const cli = readFileSync(join(out, runs[0], 'windows-weak-labels.csv'));
+    expect(cli.equals(Buffer.from(last.bytes)), "the app's and gleaner run's weak labels differ").toBe(true);
     expect(h.pageErrors).toEqual([]);
   });
 });

@@ -20,6 +20,8 @@
  * does (an empty cluster that is not listed); `slots` is the highest index used + 1.
  */
 
+import type { AnalysisResult } from '../analysis.types';
+
 /** A cluster an earlier re-cut dropped: its index and its windows (analysed-window indices). */
 export interface RememberedCluster {
   index: number;
@@ -117,4 +119,27 @@ export function carryIdentities(
   const dropped: CarriedCut['dropped'] = [];
   for (let p = 0; p < prevSlots; p++) if (winner[p] < 0 && holder[p] >= 0) dropped.push({ index: p, into: holder[p] });
   return { labels, indexOf, origin, dropped, slots };
+}
+
+/**
+ * A recomputed hierarchical result numbered like the saved one. Reproducing a study (`gleaner run`)
+ * cuts the tree again, and `cutTree` numbers clusters by lowest leaf, while the saved labels carry
+ * the identities kept across re-cuts in the app (and the recorded curation refers to them). The
+ * recomputed labels are relabelled by carryIdentities against the saved ones, which gives the saved
+ * labels back whenever the partition is the same; the cluster means follow their clusters, and k
+ * covers every saved index. Other results, and results of another length, are returned as they are.
+ */
+export function withSavedIdentities(saved: AnalysisResult, recomputed: AnalysisResult): AnalysisResult {
+  const c = recomputed.cluster;
+  if (c.method !== 'hierarchical' || saved.labels.length !== recomputed.labels.length) return recomputed;
+  const carried = carryIdentities(saved.labels, recomputed.labels);
+  const k = Math.max(carried.slots, saved.cluster.k);
+  const sizes = new Int32Array(k);
+  for (const l of carried.labels) sizes[l]++;
+  const d = c.k > 0 ? recomputed.centroids.length / c.k : 0;
+  const centroids = new Float64Array(k * d);
+  for (let j = 0; j < c.k && j < carried.indexOf.length; j++) {
+    centroids.set(recomputed.centroids.subarray(j * d, (j + 1) * d), carried.indexOf[j] * d);
+  }
+  return { ...recomputed, labels: carried.labels, sizes, centroids, cluster: { ...c, k } };
 }

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { carryIdentities } from '../../../src/core/curation/carry-identities';
+import { carryIdentities, withSavedIdentities } from '../../../src/core/curation/carry-identities';
+import type { AnalysisResult } from '../../../src/core/analysis.types';
 import { cutTree, hierarchical } from '../../../src/core/cluster/hierarchy';
 import { seededRandom } from '../../../src/core/random';
 
@@ -95,5 +96,31 @@ describe('carryIdentities', () => {
     expect(Array.from(back.labels)).toEqual(Array.from(at3));
     expect(back.dropped.map((x) => x.index)).toEqual([3, 4, 5, 6, 7]);
     expect(Array.from(carryIdentities(at3, cutTree(tree, { k: 8 })).labels)).toEqual(Array.from(to8.labels));
+  });
+});
+
+describe('withSavedIdentities', () => {
+  const tree = (labels: number[], k: number, centroids: number[]) => ({
+    labels: I(labels), sizes: new Int32Array(k), centroids: Float64Array.from(centroids),
+    cluster: { method: 'hierarchical', linkage: 'ward', k, path: 'exact', space: 'features' },
+  }) as unknown as AnalysisResult;
+
+  it('numbers a recomputed cut like the saved one (gaps kept), the means following their clusters', () => {
+    // Saved (after re-cuts in the app): indices 0, 4 and 2; index 1 and 3 empty, k = 5 slots.
+    const saved = tree([0, 0, 4, 4, 2], 5, []);
+    // Recomputed: the same partition numbered by lowest window, 1-d means 10, 20, 30.
+    const redone = tree([0, 0, 1, 1, 2], 3, [10, 20, 30]);
+    const r = withSavedIdentities(saved, redone);
+    expect(Array.from(r.labels)).toEqual([0, 0, 4, 4, 2]);
+    expect(r.cluster.k).toBe(5);
+    expect(Array.from(r.sizes)).toEqual([2, 0, 1, 0, 2]);
+    expect(Array.from(r.centroids)).toEqual([10, 0, 30, 0, 20]);
+  });
+
+  it('leaves k-means results and results of another length as they are', () => {
+    const km = { ...tree([1, 0], 2, [1, 2]), cluster: { method: 'kmeans', k: 2 } } as unknown as AnalysisResult;
+    expect(withSavedIdentities(tree([0, 1], 2, []), km)).toBe(km);
+    const short = tree([0], 1, [5]);
+    expect(withSavedIdentities(tree([0, 1], 2, []), short)).toBe(short);
   });
 });
