@@ -173,6 +173,27 @@ describe('identities across tree re-cuts, end to end', () => {
     expect(await exportedCounts(h, 'back8')).toEqual(back8);
     await page.screenshot({ path: join(OUTPUT, 'tree-identity-back8.png') });
 
+    // One merge more (7 clusters): the merged cluster keeps the larger one's number, the other
+    // number is left out (a gap, not a renumbering), and the export still agrees with the list.
+    await canvas.focus();
+    await page.keyboard.press('ArrowUp');
+    await expect.poll(() => page.getByTestId('tree-k').textContent()).toBe('7');
+    await expect.poll(() => page.getByText('updating confidence').count()).toBe(0);
+    const at7 = byNumber(await listRows(page));
+    expect(at7.length).toBe(7);
+    const gone = back8.filter((r) => !at7.some((x) => x.number === r.number));
+    expect(gone.length).toBe(1);
+    const grown = at7.filter((r) => r.size !== back8.find((x) => x.number === r.number)!.size);
+    expect(grown.length).toBe(1);
+    expect(grown[0].size).toBe(back8.find((x) => x.number === grown[0].number)!.size + gone[0].size);
+    expect(gone[0].size).toBeLessThanOrEqual(back8.find((x) => x.number === grown[0].number)!.size);
+    expect(await exportedCounts(h, 'k7')).toEqual(at7);
+    await canvas.focus();
+    await page.keyboard.press('ArrowDown');
+    await expect.poll(() => page.getByTestId('tree-k').textContent()).toBe('8');
+    await expect.poll(() => page.getByText('updating confidence').count()).toBe(0);
+    expect(byNumber(await listRows(page))).toEqual(back8);
+
     // A curation change at 8 (a description) makes the 8 clusters the ones the next cut starts from;
     // down to 12 again (four keys): the clusters merged away come back whole, with their names and
     // numbers ("resting" among them), so the list is the one at 12 again.
