@@ -183,16 +183,24 @@ export class TreeCut {
     const anchorSizes = new Int32Array(anchor.notes.length);
     for (const c of anchor.labels) if (c >= 0 && c < anchorSizes.length) anchorSizes[c]++;
     const dropped = [...carried.dropped].sort((a, b) => anchorSizes[b.index] - anchorSizes[a.index] || a.index - b.index);
-    for (const { index, into } of dropped) {
+    // The windows of every dropped cluster, in one pass over the anchor's labels.
+    const slot = new Int32Array(anchorSizes.length).fill(-1);
+    dropped.forEach((x, i) => { slot[x.index] = i; });
+    const members = dropped.map((x) => new Int32Array(anchorSizes[x.index]));
+    const filled = new Int32Array(dropped.length);
+    anchor.labels.forEach((c, i) => {
+      const at = c >= 0 && c < slot.length ? slot[c] : -1;
+      if (at >= 0) members[at][filled[at]++] = i;
+    });
+    for (const [i, { index, into }] of dropped.entries()) {
       const note = anchor.notes[index];
       if (!note) continue;
-      const windows: number[] = [];
-      for (let i = 0; i < anchor.labels.length; i++) if (anchor.labels[i] === index) windows.push(i);
+      const windows = members[i];
       const target = carried.indexOf[into], kept = notes[target];
       const adopts = !!(note.name || note.className) && !(kept?.name || kept?.className);
       if (adopts) notes[target] = { ...(kept ?? emptyNote()), name: note.name, className: note.className };
       const at = memory.findIndex((r) => r.index === index);
-      memory.splice(at < 0 ? memory.length : at, 1, { index, windows: Int32Array.from(windows), note, adopter: adopts ? target : -1 });
+      memory.splice(at < 0 ? memory.length : at, 1, { index, windows, note, adopter: adopts ? target : -1 });
     }
     // An index in use again is no longer a remembered one.
     const inUse = new Uint8Array(slots);

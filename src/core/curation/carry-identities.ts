@@ -95,18 +95,22 @@ export function carryIdentities(
   for (let p = 0; p < prevSlots; p++) {
     if (winner[p] >= 0) { indexOf[winner[p]] = p; origin[winner[p]] = 'kept'; used.add(p); }
   }
-  // Step 3: remembered indices, for clusters that share a majority of windows both ways.
+  // Step 3: remembered indices, for clusters that share a majority of windows both ways. A
+  // remembered cluster holds a majority of its windows in at most one cut cluster, so one pass over
+  // each one's windows finds its only candidate.
   const remembered = [...(options.remembered ?? [])].sort((a, b) => a.index - b.index);
-  for (let j = 0; j < k; j++) {
-    if (indexOf[j] >= 0 || remembered.length === 0) continue;
-    let pick = -1, pickShare = 0;
-    for (const r of remembered) {
-      if (used.has(r.index) || !(Number.isInteger(r.index) && r.index >= 0)) continue;
-      let share = 0;
-      for (const w of r.windows) if (w >= 0 && w < n && cut[w] === j) share++;
-      if (share * 2 > cutSize[j] && share * 2 > r.windows.length && share > pickShare) { pick = r.index; pickShare = share; }
+  const pick = new Int32Array(k).fill(-1), pickShare = new Int32Array(k);
+  for (const r of remembered) {
+    if (used.has(r.index) || !(Number.isInteger(r.index) && r.index >= 0)) continue;
+    const shares = new Map<number, number>();
+    for (const w of r.windows) if (w >= 0 && w < n) shares.set(cut[w], (shares.get(cut[w]) ?? 0) + 1);
+    for (const [j, share] of shares) {
+      if (indexOf[j] >= 0 || !(share * 2 > cutSize[j] && share * 2 > r.windows.length)) continue;
+      if (share > pickShare[j]) { pick[j] = r.index; pickShare[j] = share; }
     }
-    if (pick >= 0) { indexOf[j] = pick; origin[j] = 'remembered'; used.add(pick); }
+  }
+  for (let j = 0; j < k; j++) {
+    if (pick[j] >= 0 && !used.has(pick[j])) { indexOf[j] = pick[j]; origin[j] = 'remembered'; used.add(pick[j]); }
   }
   // Step 4: fresh indices after the previous maximum (and after any index already taken).
   let next = prevSlots;
