@@ -14,6 +14,7 @@ const SUITES: Record<string, () => Promise<{ run(quick: boolean): Promise<void> 
   traces: () => import('./suites/traces'),
   cancel: () => import('./suites/cancel'),
   hdbscan: () => import('./suites/hdbscan'),
+  stability: () => import('./suites/stability'),
   peers: () => import('./suites/peers'),
 };
 

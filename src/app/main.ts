@@ -10,7 +10,10 @@ const app = new AppState(pickHost());
 // an ordinary start never installs it.
 if ((window as unknown as { __gleanerWantsTestHook?: boolean }).__gleanerWantsTestHook === true) installTestHook(app);
 const host = app.host;
-host.onMenuCommand?.((command) => void (command === 'open' ? app.openFromHost() : app.exportLabels()));
+host.onMenuCommand?.((command) => {
+  if (command === 'open') void app.openFromHost();
+  else if (app.study.run) app.studyFile.exportOpen = true; // the one Export, with its choices
+});
 mount(App, { target: document.getElementById('app')!, props: { app } });
 void app.studyFile.start();
 

@@ -24,6 +24,7 @@ import { windowTimes } from '../core/export/segments';
 import { attachSubjects, recipeOption, useSubjectColumn } from './recipe-options';
 import { keepRows } from '../core/recipe/keep-rows';
 import { analyzeParams } from './pipeline-options';
+import { runStability } from './stability-option';
 
 export interface AnalyzeDeps {
   client: JobClient<Jobs>;
@@ -59,11 +60,16 @@ export async function analyzeCommand(opts: AnalyzeOptions, deps: AnalyzeDeps): P
   if (opts.values.cutHeight === undefined && opts.values.k > matrix.n) {
     throw new OptionError('--k', opts.values.k, `at most the number of windows (${matrix.n})`);
   }
+  if (opts.stability !== undefined && !matrix.subjectCodes) {
+    throw new OptionError('--stability', opts.stability, 'a table with a subject column (resamples leave subjects out; name it with --subject)');
+  }
   const params = analyzeParams(opts.values, matrix.n);
   const { n, d, featureNames } = matrix;
   if (recipe) params.recipe = recipe;
   const analyzePayload: AnalyzeJob = { matrix, params };
   const result = await runJob(deps, analyzePayload, [matrix.data.buffer as ArrayBuffer], 'analysing');
+  const stability = opts.stability === undefined ? undefined
+    : await runStability(deps, { table, roles, params, run: { labels: result.labels, windows: result.windows, cluster: result.cluster }, options: { resamples: opts.stability } });
   // The recipe dropped windows: the outputs list the analysed windows only.
   if (result.windows) ({ table, roles } = keepRows(table, roles, result.windows));
 
@@ -81,6 +87,7 @@ export async function analyzeCommand(opts: AnalyzeOptions, deps: AnalyzeDeps): P
     subjects,
     compositions,
     labelAgreement: label ? labelAgreement(result.labels, label) : null,
+    ...(stability ? { stability } : {}),
     version: deps.version,
   });
   mkdirSync(outDir, { recursive: true });
@@ -93,7 +100,7 @@ export async function analyzeCommand(opts: AnalyzeOptions, deps: AnalyzeDeps): P
 async function runJob(deps: AnalyzeDeps, payload: AnalyzeJob, transfer: ArrayBuffer[], label: string): Promise<AnalysisResult> {
   const running = deps.client.run('analyze', payload, {
     transfer,
-    onProgress: (p) => deps.progress.update(`${label}: ${p.stage}`, p.fraction),
+    onProgress: (p) => deps.progress.update(`${label}: ${p.stage}`, p.fraction, p.detail),
   });
   deps.onJob(running as RunningJob<unknown>);
   try {

@@ -1,4 +1,4 @@
-import { INPUT_PARAMS, PARAMS, type ImputeChoice, type RunValues, type ScaleChoice } from '../core/params';
+import { INPUT_PARAMS, PARAMS, STABILITY_PARAMS, type ImputeChoice, type RunValues, type ScaleChoice } from '../core/params';
 import { OUT, PROGRESS } from './cli-flags';
 import { commandUsage, parseCommand, value, type CommandSpec } from './parse-command';
 import { pipelineValues } from './pipeline-options';
@@ -28,6 +28,8 @@ export interface AnalyzeOptions {
   recipe?: string;
   /** Also write events.tsv and EDF+ annotation files (--events). */
   events?: boolean;
+  /** Resamples of the stability assessment across subjects (--stability). */
+  stability?: number;
 }
 
 export type Command =
@@ -45,6 +47,7 @@ export const ANALYZE: CommandSpec = {
   flags: [
     OUT, P.k, P.seed, P.restarts, I.compose, PROGRESS, I.scale, I.impute, I.subject, I.recipe, I.events,
     P.embed, P.perplexity, P.iterations, P.neighbors, P.minDist, P.metric, P.sampleAbove, P.cluster, P.cutHeight, P.minClusterSize, P.minSamples, P.space,
+    STABILITY_PARAMS.stability,
   ].map((spec) => ({ spec })),
 };
 
@@ -93,5 +96,6 @@ export function parseArgs(argv: readonly string[]): Command {
   if (texts.has(I.impute.flag)) opts.impute = value(parsed, I.impute);
   if (texts.has(I.subject.flag)) opts.subject = texts.get(I.subject.flag);
   if (texts.has(I.events.flag)) opts.events = true;
+  if (texts.has(STABILITY_PARAMS.stability.flag)) opts.stability = value(parsed, STABILITY_PARAMS.stability);
   return { command: 'analyze', ...opts, values: { ...pipelineValues(parsed), k, seed, restarts } };
 }

@@ -1,12 +1,18 @@
+import { EtaEstimator } from '../core/progress/eta';
+import { progressText } from '../core/progress/format';
+
 /** What the CLI shows while a job runs. */
 export interface ProgressReporter {
-  update(stage: string, fraction: number): void;
+  /** A report: the stage, the fraction of the job, and what the stage is at (cleared when absent). */
+  update(stage: string, fraction: number, detail?: string): void;
   /** Clears the bar (TTY) so the next output starts on a clean line. */
   finish(): void;
 }
 
 const BAR_WIDTH = 28;
 const REDRAW_MS = 80;
+/** The bar is redrawn this often without a report, so its elapsed time keeps moving. */
+const TICK_MS = 1000;
 
 /** How progress is shown: `auto` is `bar` on a terminal and `none` otherwise. */
 export type ProgressMode = 'auto' | 'bar' | 'lines' | 'none';
@@ -16,8 +22,11 @@ export const PROGRESS_MODES: readonly ProgressMode[] = ['auto', 'bar', 'lines', 
 const LINE_INTERVAL_MS = 2000;
 
 /**
- * `bar`: a one-line progress bar redrawn in place (terminals). `lines`: a plain line at each new
- * stage and every few seconds (batch logs). `none`: nothing, so stderr carries only real messages.
+ * `bar`: a one-line progress bar redrawn in place (terminals), with the stage, what it is at, the
+ * elapsed time (redrawn every second) and the time left once it is stable (core/progress/eta.ts).
+ * `lines`: a plain line at each new stage and every few seconds (batch logs), with the same words.
+ * `none`: nothing, so stderr carries only real messages. Elapsed time counts from the first report
+ * after a finish() (or after the reporter was made).
  */
 export function progressReporter(
   stream: NodeJS.WriteStream,
@@ -29,17 +38,57 @@ export function progressReporter(
   if (resolved === 'lines') return linesReporter(stream, now);
   let last = -Infinity;
   let shown = false;
+  const clock = runClock(now);
+  let latest = { stage: '', fraction: 0, detail: '' };
+  let timer: ReturnType<typeof setInterval> | null = null;
+  const draw = () => {
+    shown = true;
+    const words = clock.words(latest.stage, latest.detail);
+    stream.write(`\r\x1b[K${renderBar(words, latest.fraction, stream.columns > 0 ? stream.columns : 80)}`);
+  };
   return {
-    update(stage, fraction) {
+    update(stage, fraction, detail) {
+      clock.report(stage, fraction);
+      latest = { stage, fraction, detail: detail ?? '' };
+      if (timer === null) {
+        timer = setInterval(draw, TICK_MS);
+        timer.unref?.();
+      }
       const t = now();
       if (t - last < REDRAW_MS && fraction < 1) return;
       last = t;
-      shown = true;
-      stream.write(`\r\x1b[K${renderBar(stage, fraction, stream.columns > 0 ? stream.columns : 80)}`);
+      draw();
     },
     finish() {
+      if (timer !== null) clearInterval(timer);
+      timer = null;
+      clock.reset();
       if (shown) stream.write('\r\x1b[K');
       shown = false;
+    },
+  };
+}
+
+/** Elapsed time and the ETA of the job in progress, as words after the stage. */
+function runClock(now: () => number) {
+  let startedAt: number | null = null;
+  let eta: EtaEstimator | null = null;
+  return {
+    report(stage: string, fraction: number) {
+      const t = now();
+      if (startedAt === null || eta === null) {
+        startedAt = t;
+        eta = new EtaEstimator(t);
+      }
+      eta.report(t, fraction, stage);
+    },
+    words(stage: string, detail: string): string {
+      const t = now();
+      return progressText({ stage, detail, elapsedMs: startedAt === null ? 0 : t - startedAt, etaMs: eta ? eta.at(t) : null });
+    },
+    reset() {
+      startedAt = null;
+      eta = null;
     },
   };
 }
@@ -56,14 +105,20 @@ export function renderBar(stage: string, fraction: number, columns: number): str
 function linesReporter(stream: NodeJS.WriteStream, now: () => number): ProgressReporter {
   let lastStage = '';
   let last = -Infinity;
+  const clock = runClock(now);
   return {
-    update(stage, fraction) {
+    update(stage, fraction, detail) {
+      clock.report(stage, fraction);
       const t = now();
       if (stage === lastStage && t - last < LINE_INTERVAL_MS) return;
       lastStage = stage;
       last = t;
-      stream.write(`gleaner: ${stage} ${Math.floor(Math.max(0, Math.min(1, fraction)) * 100)}%\n`);
+      const pct = `${Math.floor(Math.max(0, Math.min(1, fraction)) * 100)}%`;
+      stream.write(`gleaner: ${pct} ${clock.words(stage, detail ?? '')}\n`);
     },
-    finish() {},
+    finish() {
+      clock.reset();
+      lastStage = '';
+    },
   };
 }

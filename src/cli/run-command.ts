@@ -114,7 +114,7 @@ export async function runStudy(opts: RunCommandOptions, deps: { progress: Progre
     const matrix = featureMatrix(input.table, run.roles);
     attachSubjects(matrix, input.table, run.roles);
     const ctx: JobContext = {
-      progress: (stage, f) => bar.update(`${run.id}: ${stage}`, f),
+      progress: (stage, f, detail) => bar.update(`${run.id}: ${stage}`, f, detail),
       checkpoint: () => new Promise((res, rej) => setImmediate(() => (deps.cancelled() ? rej(new CancelledError()) : res()))),
     };
     // A tree cut again is numbered by lowest leaf; the saved run numbers its clusters as the app kept them.

@@ -4,7 +4,9 @@ import type { ColumnComposition } from '../core/composition/compose-column';
 import type { LabelAgreement } from '../core/composition/label-agreement';
 import type { ClusterComposition, SubjectComposition } from '../core/export/cluster-composition';
 import { exportedClusterRecord, identityRecord, type ClusterIdentity } from '../core/export/run-model';
+import type { StabilityResult } from '../core/stability/stability';
 import type { Roles } from '../core/table/roles.types';
+import { stabilityFields, stabilityRule } from './stability-option';
 
 export interface SummaryInput {
   input: { path: string; fileName: string; sha256: string; rows: number; features: number; featureNames: string[] };
@@ -21,6 +23,8 @@ export interface SummaryInput {
   compositions?: ColumnComposition[];
   /** Agreement with a partial label column, on its labelled windows only. */
   labelAgreement?: LabelAgreement | null;
+  /** Stability across subjects (--stability), when asked for. */
+  stability?: StabilityResult;
   version: string;
 }
 
@@ -77,7 +81,11 @@ export function buildSummary(s: SummaryInput): Record<string, unknown> {
       text: ruleText(subjects.subjectBoundRule),
     };
   }
-  out.clusters = s.composition.map(({ id, ...mix }) => ({ ...identityRecord(s.identities[id]), ...mix }));
+  const { stability } = s;
+  if (stability) out.stabilityRule = stabilityRule(stability);
+  out.clusters = s.composition.map(({ id, ...mix }) => ({
+    ...identityRecord(s.identities[id]), ...mix, ...(stability ? stabilityFields(id, stability) : {}),
+  }));
   if (s.compositions && s.compositions.length > 0) out.compositions = s.compositions.map(composed);
   if (s.labelAgreement) out.labelAgreement = s.labelAgreement;
   out.cautions = CAUTIONS;

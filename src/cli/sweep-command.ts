@@ -102,7 +102,7 @@ export async function runSweep(argv: readonly string[]): Promise<number> {
     const { data } = baselineRecipe(matrix);
     const bar = progressReporter(process.stderr, opts.progress);
     const ctx: JobContext = {
-      progress: (stage, f) => bar.update(`sweep: ${stage}`, f),
+      progress: (stage, f, detail) => bar.update(`sweep: ${stage}`, f, detail),
       checkpoint: () => new Promise((resolve, reject) => setImmediate(() => (cancelled ? reject(new CancelledError()) : resolve()))),
     };
     const rows = await sweepK(data, matrix.n, matrix.d, opts, ctx).finally(() => bar.finish());

@@ -2,7 +2,7 @@ import type { AnalysisParams, AnalysisResult, FeatureMatrix } from './analysis.t
 import { OptionError } from './errors';
 import type { JobContext } from './job';
 import { sampleIndices } from './metrics/sample';
-import { mean, silhouetteSamples } from './metrics/silhouette';
+import { silhouetteOfSample } from './metrics/silhouette';
 import { pipelineChoices, requestedK, type PipelineChoices } from './pipeline/choices';
 import { clusterStage } from './pipeline/cluster-stage';
 import { embedStage } from './pipeline/embed-stage';
@@ -14,11 +14,14 @@ import type { RecipeCache } from './recipe/recipe-cache';
 import { DEFAULT_RECIPE } from './recipe/recipe.types';
 
 type Span = readonly [number, number];
-type StageName = 'scaling' | 'embedding' | 'quality' | 'clustering' | 'silhouette';
+type StageName = 'scaling' | 'embedding' | 'placing' | 'quality' | 'clustering' | 'silhouette';
 
-/** Share of the job's progress bar each stage takes, in order: PCA runs as in the first slice. */
-const PCA_STAGES: Record<StageName, Span> = { scaling: [0, 0.05], embedding: [0.05, 0.15], quality: [0.15, 0.15], clustering: [0.15, 0.9], silhouette: [0.9, 1] };
-const LAYOUT_STAGES: Record<StageName, Span> = { scaling: [0, 0.02], embedding: [0.02, 0.8], quality: [0.8, 0.86], clustering: [0.86, 0.98], silhouette: [0.98, 1] };
+/**
+ * Share of the job's progress bar each stage takes, in order: PCA runs as in the first slice.
+ * Placing (sample-then-place) reports within the embedding's share, after the layout.
+ */
+const PCA_STAGES: Record<StageName, Span> = { scaling: [0, 0.05], embedding: [0.05, 0.15], placing: [0.05, 0.15], quality: [0.15, 0.15], clustering: [0.15, 0.9], silhouette: [0.9, 1] };
+const LAYOUT_STAGES: Record<StageName, Span> = { scaling: [0, 0.02], embedding: [0.02, 0.8], placing: [0.02, 0.8], quality: [0.8, 0.86], clustering: [0.86, 0.98], silhouette: [0.98, 1] };
 
 function isInt(v: unknown): v is number {
   return typeof v === 'number' && Number.isInteger(v);
@@ -61,9 +64,10 @@ export async function analyze(matrix: FeatureMatrix, params: AnalysisParams, ctx
   const choices = validateAnalysis(matrix, params);
   const random = seededRandom(params.seed);
   const spans = choices.embed.method === 'pca' ? PCA_STAGES : LAYOUT_STAGES;
-  const stage = (name: StageName, f: number, label: string = name) => {
-    const [a, b] = spans[name];
-    ctx.progress(label, a + (b - a) * f);
+  // Every report names one of the stages below; what a kernel says of itself goes in the detail.
+  const stage = (name: StageName, f: number, detail?: string, span: Span = spans[name]) => {
+    const [a, b] = span;
+    ctx.progress(name, a + (b - a) * f, detail);
   };
 
   stage('scaling', 0);
@@ -74,34 +78,28 @@ export async function analyze(matrix: FeatureMatrix, params: AnalysisParams, ctx
   checkPrepared(prepared, requestedK(choices.cluster));
   await ctx.checkpoint();
 
-  stage('embedding', 0);
+  stage('embedding', 0, { pca: 'PCA', tsne: 't-SNE', umap: 'UMAP' }[choices.embed.method]);
   const subjectCodes = matrix.subjectCodes && (n < matrix.n ? Int32Array.from(prepared.windows, (w) => matrix.subjectCodes![w]) : matrix.subjectCodes);
-  const embedded = await embedStage({ data, n, d, subjectCodes, seed: params.seed }, choices, ctx, (label, f) => stage('embedding', f, label));
+  const embedded = await embedStage({ data, n, d, subjectCodes, seed: params.seed }, choices, ctx, (name, f, detail) => stage(name, f, detail, spans.embedding));
   const { coords } = embedded;
   await ctx.checkpoint();
 
   let embed = embedded.record;
   if (choices.quality) {
-    stage('quality', 0);
+    stage('quality', 0, 'trustworthiness');
     embed = { ...embed, ...mapQuality(data, n, d, coords, params.seed, embed.method === 'umap' ? embed.metric : 'euclidean') };
     await ctx.checkpoint();
   }
 
   stage('clustering', 0);
-  const c = await clusterStage({ data, n, d, coords, seed: params.seed }, choices, random, ctx, (f) => stage('clustering', f));
+  const c = await clusterStage({ data, n, d, coords, seed: params.seed }, choices, random, ctx, (f, detail) => stage('clustering', f, detail));
   const { labels } = c;
   await ctx.checkpoint();
 
   stage('silhouette', 0);
   const sample = sampleIndices(n, params.silhouetteSample, random);
   const m = sample.length;
-  const sampled = new Float64Array(m * d);
-  const sampledLabels = new Int32Array(m);
-  for (let s = 0; s < m; s++) {
-    sampled.set(data.subarray(sample[s] * d, sample[s] * d + d), s * d);
-    sampledLabels[s] = labels[sample[s]];
-  }
-  const silhouette = mean(silhouetteSamples({ data: sampled, n: m, d }, sampledLabels));
+  const silhouette = silhouetteOfSample(data, d, sample, labels);
   stage('silhouette', 1);
 
   return {

@@ -4,8 +4,12 @@
  * arrives.
  */
 export interface JobContext {
-  /** Report progress: a stage name and the fraction done of the whole job (0..1). */
-  progress(stage: string, fraction: number): void;
+  /**
+   * Report progress: a stage name, the fraction done of the whole job (0..1), and optionally what
+   * the stage is at ("iteration 340 / 1000", "12,000 / 90,000 windows"). A detail belongs to the
+   * report it comes with: the next report without one clears it.
+   */
+  progress(stage: string, fraction: number, detail?: string): void;
   /**
    * Called between slices of work. Resolves when the job may go on; rejects with CancelledError
    * when it was cancelled. Drivers yield to their event loop here so cancel messages get in.

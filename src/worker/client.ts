@@ -4,6 +4,8 @@ import type { AnyJobs, ErrorPayload, FromHost, JobTable, MessagePortLike, Payloa
 export interface Progress {
   stage: string;
   fraction: number;
+  /** What the stage is at, when the job says ("epoch 120 / 500"); absent means none. */
+  detail?: string;
 }
 
 export interface RunningJob<R> {
@@ -59,7 +61,7 @@ export class JobClient<T extends JobTable = AnyJobs> {
     if (!p) return;
     switch (msg.type) {
       case 'progress':
-        p.onProgress?.({ stage: msg.stage, fraction: msg.fraction });
+        p.onProgress?.({ stage: msg.stage, fraction: msg.fraction, ...(msg.detail ? { detail: msg.detail } : {}) });
         return;
       case 'partial':
         p.onPartial?.(msg.value);

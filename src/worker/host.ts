@@ -5,7 +5,10 @@ import { transferablesOf, type ErrorPayload, type FromHost, type MessagePortLike
 /** A job: takes a payload, reports through the context, returns a result (typed arrays are transferred). */
 export type JobHandler = (payload: never, ctx: JobContext) => Promise<unknown>;
 
-/** Progress messages are sent at most this often (ms); the first and last always go. */
+/**
+ * Progress messages are sent at most this often (ms); the first, the last and the first of each new
+ * stage always go (a short stage would otherwise never be named while it runs).
+ */
 const PROGRESS_INTERVAL_MS = 100;
 /** Intermediate results are sent at most this often (ms): a few redraws per second. */
 const PARTIAL_INTERVAL_MS = 250;
@@ -38,14 +41,16 @@ export function serveJobs(
 
   async function runOne(id: number, handler: JobHandler, payload: unknown): Promise<void> {
     let lastPost = -Infinity;
+    let lastStage: string | null = null;
     let lastPartial = -Infinity;
     let sliceStart = now();
     const ctx: JobContext = {
-      progress(stage, fraction) {
+      progress(stage, fraction, detail) {
         const t = now();
-        if (t - lastPost >= PROGRESS_INTERVAL_MS || fraction >= 1) {
+        if (t - lastPost >= PROGRESS_INTERVAL_MS || fraction >= 1 || stage !== lastStage) {
           lastPost = t;
-          port.post({ type: 'progress', id, stage, fraction: Math.max(0, Math.min(1, fraction)) });
+          lastStage = stage;
+          port.post({ type: 'progress', id, stage, fraction: Math.max(0, Math.min(1, fraction)), ...(detail ? { detail } : {}) });
         }
       },
       wantsPartial: () => now() - lastPartial >= PARTIAL_INTERVAL_MS,

@@ -7,7 +7,11 @@ import type { JobContext } from '../core/job';
 import { profileRun, type ProfileInput, type RunProfile } from '../core/profile/profile';
 import { dataQuality, type DataQuality } from '../core/quality';
 import { RecipeCache } from '../core/recipe/recipe-cache';
+import { tableStability, type StabilityOptions, type StabilityResult, type StabilityRun } from '../core/stability/stability';
+import type { Roles } from '../core/table/roles.types';
+import type { Table } from '../core/table/table';
 import type { JobHandler } from './host';
+import { silhouetteJob, type SilhouetteJob, type SilhouetteResult } from './silhouette-job';
 import { recutJob, type RecutJob, type RecutResult } from './recut-job';
 import { splitCluster, type SplitJob } from './split-cluster';
 import { sweepJob, type SweepJob } from './sweep-job';
@@ -28,6 +32,15 @@ export interface QualityJob {
   matrix: FeatureMatrix;
   /** Name of each subject code in matrix.subjectCodes. */
   subjectNames?: string[];
+}
+
+export interface StabilityJob {
+  /** The table and roles the run was made from (before its recipe dropped any window). */
+  table: Table;
+  roles: Roles;
+  params: AnalysisParams;
+  run: StabilityRun;
+  options: StabilityOptions;
 }
 
 export interface JobsDeps {
@@ -66,6 +79,14 @@ export function createJobs(deps: JobsDeps = {}) {
     /** k-means over a range of k with inertia, silhouette, Calinski–Harabasz and Davies–Bouldin (the sweep view). */
     async sweep(payload: SweepJob, ctx: JobContext): Promise<SweepRow[]> {
       return sweepJob(payload, ctx);
+    },
+    /** Each cluster's stability across subjects: the run again on resamples that leave subjects out. */
+    async stability(payload: StabilityJob, ctx: JobContext): Promise<StabilityResult> {
+      return tableStability(payload.table, payload.roles, payload.params, payload.run, payload.options, ctx);
+    },
+    /** Mean silhouette of curated labels (after a merge, split or move). */
+    async silhouette(payload: SilhouetteJob, ctx: JobContext): Promise<SilhouetteResult> {
+      return silhouetteJob(payload, ctx);
     },
     /** Confidence and cluster means of a new cut of the tree (the Tree view's cut line). */
     async recut(payload: RecutJob, ctx: JobContext): Promise<RecutResult> {

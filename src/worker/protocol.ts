@@ -25,7 +25,7 @@ export type ToHost =
   | { type: 'cancel'; id: number };
 
 export type FromHost =
-  | { type: 'progress'; id: number; stage: string; fraction: number }
+  | { type: 'progress'; id: number; stage: string; fraction: number; detail?: string }
   | { type: 'partial'; id: number; value: unknown }
   | { type: 'done'; id: number; result: unknown }
   | { type: 'error'; id: number; error: ErrorPayload }

@@ -4,6 +4,7 @@ import { OptionError } from '../core/errors';
 import type { JobContext } from '../core/job';
 import { clusterMeans } from '../core/pipeline/cluster-stage';
 import { recipeData } from './recipe-data';
+import { labelsSilhouette } from './silhouette-job';
 
 export interface RecutJob {
   /** The run's feature matrix (before its recipe) and parameters. */
@@ -19,6 +20,9 @@ export interface RecutJob {
 }
 
 export interface RecutResult {
+  /** Mean silhouette of the new cut (the run's sample size, its own seeded sample). */
+  silhouette: number;
+  silhouetteSampleSize: number;
   confidence: Float32Array;
   /** k × d means of the scaled features (k = highest index + 1; a row of zeros for an index without windows). */
   centroids: Float64Array;
@@ -26,7 +30,8 @@ export interface RecutResult {
 
 /**
  * What a new cut of the tree changes besides the labels: per-window confidence (1 − d1/d2 to the
- * cluster means in the clustered space, as the run computes it) and the cluster means.
+ * cluster means in the clustered space, as the run computes it), the cluster means and the mean
+ * silhouette of the new cut.
  */
 export async function recutJob(job: RecutJob, ctx: JobContext): Promise<RecutResult> {
   const { matrix, params, labels, coords } = job;
@@ -48,5 +53,6 @@ export async function recutJob(job: RecutJob, ctx: JobContext): Promise<RecutRes
   const compact = m === k ? labels : Int32Array.from(labels, (c) => live[c]);
   const centres = m === k && !map ? centroids : clusterMeans(x, n, dx, compact, m);
   const confidence = centreConfidence(x, n, dx, centres, m);
-  return { confidence, centroids };
+  ctx.progress('silhouette', 0.75);
+  return { confidence, centroids, ...labelsSilhouette(data, n, d, labels, params) };
 }

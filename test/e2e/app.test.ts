@@ -6,9 +6,10 @@
 import { createHash } from 'node:crypto';
 import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import type { Download, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CAUTIONS } from '../../src/core/cautions';
+import { readZip } from '../../src/core/study/zip';
 import { BAD_INPUTS } from '../fixtures/bad-inputs';
 import { hookState, openThroughChooser, OUTPUT, ROOT, startHarness, waitForRuns, type Harness } from './harness';
 
@@ -102,17 +103,20 @@ describe('browser mode, end to end', () => {
     await page.getByLabel(`Name of cluster ${c0 + 1}`).fill(className);
     await page.getByLabel(`Name of cluster ${c0 + 1}`).press('Enter');
 
-    // Export: the browser host downloads two files.
-    const downloads: Download[] = [];
-    page.on('download', (d) => downloads.push(d));
-    await page.getByRole('button', { name: 'Export weak labels' }).click();
-    await expect.poll(() => downloads.length, { timeout: 20_000 }).toBe(2);
-    const byName = new Map(downloads.map((d) => [d.suggestedFilename(), d]));
-    expect([...byName.keys()].sort()).toEqual(['windows-provenance.json', 'windows-weak-labels.csv']);
+    // Export: the one Export dialog downloads one ZIP in browser mode.
+    await page.getByRole('button', { name: 'Export…' }).click();
+    await expect(page.getByText('Downloads one ZIP file holding everything ticked below.').count()).resolves.toBe(1);
+    const [zip] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Download ZIP' }).click()]);
+    expect(zip.suggestedFilename()).toBe('windows-export.zip');
+    const zipPath = join(h.tempDir, 'export.zip');
+    await zip.saveAs(zipPath);
+    // Unpacked with the app's own ZIP reader (src/core/study/zip.ts, tested on its own in test/core).
+    const byName = new Map(readZip(new Uint8Array(readFileSync(zipPath))).map((e) => [e.name, Buffer.from(e.data)]));
+    expect(byName.has('windows-weak-labels.csv') && byName.has('windows-provenance.json')).toBe(true);
     const csvPath = join(h.tempDir, 'labels.csv');
     const jsonPath = join(h.tempDir, 'provenance.json');
-    await byName.get('windows-weak-labels.csv')!.saveAs(csvPath);
-    await byName.get('windows-provenance.json')!.saveAs(jsonPath);
+    writeFileSync(csvPath, byName.get('windows-weak-labels.csv')!);
+    writeFileSync(jsonPath, byName.get('windows-provenance.json')!);
 
     const rows = readFileSync(csvPath, 'utf8').split(/\r?\n/).filter((l) => l.length > 0).map((l) => l.split(','));
     const header = rows.shift()!;

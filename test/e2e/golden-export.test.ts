@@ -1,7 +1,7 @@
 /**
- * Golden outputs of the app (browser mode): the files "Export weak labels", "Save" and the Export
- * dialog write for a curated k-means run of the demo study, and "Export weak labels" of a t-SNE
- * run set up in the run panel, must stay byte-identical to test/fixtures/golden/app-*
+ * Golden outputs of the app (browser mode): the files "Save" and the Export dialog write for a
+ * curated k-means run of the demo study, and the Export dialog's weak labels and provenance for a
+ * t-SNE run set up in the run panel, must stay byte-identical to test/fixtures/golden/app-*
  * (GLEANER_GOLDEN_WRITE=1 rewrites them). Masked, because they hold the wall clock: the export
  * time (`createdAt` of the provenance, the same time in the report), the run's time stamped when
  * the study document is built (`runCreatedAt`), and each run's `createdAt` in the saved study.json. ZIP containers (the study file, the export bundle) are compared
@@ -48,16 +48,12 @@ async function rename(page: Page, c: number, name: string): Promise<void> {
   await page.locator('.brand').click();
 }
 
-async function exportWeakLabels(page: Page, dir: string): Promise<Outputs> {
-  const downloads: Download[] = [];
-  const listen = (d: Download) => downloads.push(d);
-  page.on('download', listen);
-  await page.getByRole('button', { name: 'Export weak labels' }).click();
-  await expect.poll(() => downloads.length, { timeout: 20_000 }).toBe(2);
-  page.off('download', listen);
-  const files: Outputs = new Map();
-  for (const d of downloads) files.set(`export-weak-labels/${d.suggestedFilename()}`, await bytesOf(d, dir));
-  return maskExportTime(files);
+/** The Export dialog's ZIP (browser mode), its entries under `prefix/`, clock times masked. */
+async function exportDialog(page: Page, dir: string, prefix: string): Promise<Outputs> {
+  await page.getByRole('button', { name: 'Export…' }).click();
+  const [zip] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Download ZIP' }).click()]);
+  expect(zip.suggestedFilename()).toBe('windows-export.zip');
+  return maskExportTime(unzip(prefix, await bytesOf(zip, dir)));
 }
 
 describe('golden outputs of the app', () => {
@@ -69,7 +65,7 @@ describe('golden outputs of the app', () => {
     await h?.close();
   });
 
-  it('a curated k-means run: Export weak labels, Save and the Export dialog write the golden bytes', async () => {
+  it('a curated k-means run: Save and the Export dialog write the golden bytes', async () => {
     const { page } = h;
     await page.goto(h.url);
     await openThroughChooser(page, DEMO);
@@ -85,7 +81,7 @@ describe('golden outputs of the app', () => {
     await page.getByLabel('Select cluster 5').check();
     await page.getByRole('button', { name: 'Merge 2 ticked' }).click();
 
-    const outputs: Outputs = await exportWeakLabels(page, h.tempDir);
+    const outputs: Outputs = new Map();
 
     const [saved] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: /^Save/ }).first().click()]);
     expect(saved.suggestedFilename()).toBe('windows.gleaner');
@@ -93,16 +89,13 @@ describe('golden outputs of the app', () => {
       outputs.set(name, name.endsWith('.json') ? maskText(data, [[new RegExp(`"createdAt": "${ISO.source}"`, 'g'), '"createdAt": "<masked>"']]) : data);
     }
 
-    await page.getByRole('button', { name: 'Export…' }).click();
-    const [zip] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Export to a folder…' }).click()]);
-    expect(zip.suggestedFilename()).toBe('windows-export.zip');
-    for (const [name, data] of maskExportTime(unzip('export-dialog', await bytesOf(zip, h.tempDir)))) outputs.set(name, data);
+    for (const [name, data] of await exportDialog(page, h.tempDir, 'export-dialog')) outputs.set(name, data);
 
     expect(checkGolden('app/curated-kmeans', outputs)).toEqual([]);
     expect(h.pageErrors).toEqual([]);
   });
 
-  it('a t-SNE run set in the run panel (perplexity, iterations, k): Export weak labels writes the golden bytes', async () => {
+  it('a t-SNE run set in the run panel (perplexity, iterations, k): the exported weak labels and provenance keep the golden bytes', async () => {
     const { page } = h;
     await page.locator('#param-embed').selectOption('tsne');
     await page.getByLabel('Perplexity').fill('25');
@@ -110,7 +103,10 @@ describe('golden outputs of the app', () => {
     await page.getByLabel('Clusters (k)').fill('5');
     await page.getByRole('button', { name: 'Run', exact: true }).click();
     await waitForRuns(page, 2, 300_000);
-    expect(checkGolden('app/tsne-panel', await exportWeakLabels(page, h.tempDir))).toEqual([]);
+    const files = await exportDialog(page, h.tempDir, 'export');
+    const kept: Outputs = new Map([...files].filter(([n]) => /-(weak-labels\.csv|provenance\.json)$/.test(n)));
+    expect(kept.size).toBe(2);
+    expect(checkGolden('app/tsne-panel', kept)).toEqual([]);
     expect(h.pageErrors).toEqual([]);
   });
 });

@@ -4,11 +4,12 @@
  * catalogue through the file chooser, and a large file streaming in while the previous study's
  * Map is panned and the load is cancelled. The catalogue comes from test/fixtures/generate-bad-inputs.ts.
  */
-import { closeSync, openSync, readFileSync, writeSync } from 'node:fs';
+import { closeSync, openSync, readFileSync, writeFileSync, writeSync } from 'node:fs';
 import { join } from 'node:path';
-import type { Download, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { seededRandom } from '../../src/core/random';
+import { readZip } from '../../src/core/study/zip';
 import { BAD_INPUT_CATALOGUE, generateBadInputs } from '../fixtures/generate-bad-inputs';
 import { hookState, openThroughChooser, OUTPUT, ROOT, startHarness, waitForRuns, type Harness } from './harness';
 
@@ -96,13 +97,13 @@ describe('Quality view, recipe editor and loading, end to end', () => {
 
     await page.getByRole('button', { name: 'Run', exact: true }).click();
     await waitForRuns(page, 2);
-    const downloads: Download[] = [];
-    page.on('download', (d) => downloads.push(d));
-    await page.getByRole('button', { name: 'Export weak labels' }).click();
-    await expect.poll(() => downloads.length, { timeout: 20_000 }).toBeGreaterThanOrEqual(2);
-    const prov = downloads.find((d) => d.suggestedFilename().endsWith('-provenance.json'))!;
+    await page.getByRole('button', { name: 'Export…' }).click();
+    const [zip] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Download ZIP' }).click()]);
+    const zipPath = join(h.tempDir, 'quality-export.zip');
+    await zip.saveAs(zipPath);
+    const prov = readZip(new Uint8Array(readFileSync(zipPath))).find((e) => e.name.endsWith('-provenance.json'))!;
     const path = join(h.tempDir, 'quality-provenance.json');
-    await prov.saveAs(path);
+    writeFileSync(path, prov.data);
     const provenance = JSON.parse(readFileSync(path, 'utf8'));
     expect(provenance.recipeSpec.steps.map((s: { type: string }) => s.type)).toEqual(['zscore', 'impute', 'prune-correlated']);
     expect(provenance.recipeSpec.steps[2].threshold).toBe(0.95);

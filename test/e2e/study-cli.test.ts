@@ -86,7 +86,7 @@ describe('study → gleaner run, end to end', () => {
 
     // Export (one ZIP in browser mode) and save the study.
     await page.getByRole('button', { name: 'Export…' }).click();
-    const [zip] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Export to a folder…' }).click()]);
+    const [zip] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Download ZIP' }).click()]);
     const zipPath = join(h.tempDir, 'export.zip');
     await zip.saveAs(zipPath);
     const byName = new Map(readZip(new Uint8Array(readFileSync(zipPath))).map((e) => [e.name, Buffer.from(e.data)]));

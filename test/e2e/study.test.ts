@@ -190,7 +190,7 @@ describe('study file, end to end', () => {
     // Export: browser mode downloads the files as one ZIP (browsers drop bursts of downloads).
     await p3.getByRole('button', { name: 'Export…' }).click();
     await p3.screenshot({ path: join(OUTPUT, 'study-export-dialog.png') });
-    const [zip] = await Promise.all([p3.waitForEvent('download'), p3.getByRole('button', { name: 'Export to a folder…' }).click()]);
+    const [zip] = await Promise.all([p3.waitForEvent('download'), p3.getByRole('button', { name: 'Download ZIP' }).click()]);
     expect(zip.suggestedFilename()).toBe('windows-export.zip');
     const zipPath = join(h.tempDir, 'export.zip');
     await zip.saveAs(zipPath);

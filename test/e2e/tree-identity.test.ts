@@ -56,7 +56,7 @@ async function exportedCounts(h: Harness, tag: string): Promise<Row[]> {
 async function exported(h: Harness, tag: string): Promise<{ counts: Row[]; bytes: Uint8Array }> {
   const { page } = h;
   await page.getByRole('button', { name: 'Export…' }).click();
-  const [zip] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Export to a folder…' }).click()]);
+  const [zip] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Download ZIP' }).click()]);
   const zipPath = join(h.tempDir, `export-${tag}.zip`);
   await zip.saveAs(zipPath);
   const entry = readZip(new Uint8Array(readFileSync(zipPath))).find((e) => e.name === 'windows-weak-labels.csv');
@@ -140,7 +140,7 @@ describe('identities across tree re-cuts, end to end', () => {
     expect(await page.getByTestId('status').textContent()).toContain('Tree cut into 12 clusters');
     await page.screenshot({ path: join(OUTPUT, 'tree-identity-drag.png') });
     await page.mouse.up();
-    await expect.poll(() => page.getByText('updating confidence').count()).toBe(0);
+    await expect.poll(() => page.getByText('updating confidence').count(), { timeout: 30_000 }).toBe(0);
     await expect.poll(() => page.getByTestId('status').textContent()).toContain('Tree cut into 12 clusters');
 
     const at12 = byNumber(await listRows(page));
@@ -163,7 +163,7 @@ describe('identities across tree re-cuts, end to end', () => {
     await canvas.focus();
     for (let i = 0; i < 4; i++) await page.keyboard.press('ArrowUp');
     await expect.poll(() => page.getByTestId('tree-k').textContent()).toBe('8');
-    await expect.poll(() => page.getByText('updating confidence').count()).toBe(0);
+    await expect.poll(() => page.getByText('updating confidence').count(), { timeout: 30_000 }).toBe(0);
     const back8 = byNumber(await listRows(page));
     expect(back8.length).toBe(8);
     expect(back8.find((r) => r.number === 3)).toEqual(walking8);
@@ -178,7 +178,7 @@ describe('identities across tree re-cuts, end to end', () => {
     await canvas.focus();
     await page.keyboard.press('ArrowUp');
     await expect.poll(() => page.getByTestId('tree-k').textContent()).toBe('7');
-    await expect.poll(() => page.getByText('updating confidence').count()).toBe(0);
+    await expect.poll(() => page.getByText('updating confidence').count(), { timeout: 30_000 }).toBe(0);
     const at7 = byNumber(await listRows(page));
     expect(at7.length).toBe(7);
     const gone = back8.filter((r) => !at7.some((x) => x.number === r.number));
@@ -191,7 +191,7 @@ describe('identities across tree re-cuts, end to end', () => {
     await canvas.focus();
     await page.keyboard.press('ArrowDown');
     await expect.poll(() => page.getByTestId('tree-k').textContent()).toBe('8');
-    await expect.poll(() => page.getByText('updating confidence').count()).toBe(0);
+    await expect.poll(() => page.getByText('updating confidence').count(), { timeout: 30_000 }).toBe(0);
     expect(byNumber(await listRows(page))).toEqual(back8);
 
     // A curation change at 8 (a description) makes the 8 clusters the ones the next cut starts from;
@@ -204,7 +204,7 @@ describe('identities across tree re-cuts, end to end', () => {
     await canvas.focus();
     for (let i = 0; i < 4; i++) await page.keyboard.press('ArrowDown');
     await expect.poll(() => page.getByTestId('tree-k').textContent()).toBe('12');
-    await expect.poll(() => page.getByText('updating confidence').count()).toBe(0);
+    await expect.poll(() => page.getByText('updating confidence').count(), { timeout: 30_000 }).toBe(0);
     const again12 = byNumber(await listRows(page));
     expect(again12).toEqual(named12);
     expect(again12.find((r) => r.number === 3)).toEqual(walking12);

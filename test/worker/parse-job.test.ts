@@ -17,7 +17,7 @@ describe('parse job', () => {
       FROM range(3000) t(i) ORDER BY i) TO ${sqlPath(path)} (FORMAT parquet, ROW_GROUP_SIZE 1000)`);
     const bytes = new Uint8Array(readFileSync(path));
     const stages: string[] = [];
-    const ctx = { ...quietContext, progress: (stage: string) => void stages.push(stage) };
+    const ctx = { ...quietContext, progress: (stage: string, _f: number, detail?: string) => void stages.push(detail ? `${stage}: ${detail}` : stage) };
     const fromBlob = await jobs.parse({ fileName: 'w.parquet', blob: new Blob([bytes]) }, ctx);
     const fromBytes = await jobs.parse({ fileName: 'w.parquet', bytes }, quietContext);
     // The hash of the whole file, as Node's crypto (OpenSSL) computes it.
@@ -33,7 +33,8 @@ describe('parse job', () => {
     for (const name of ['window_id', 'subject', 'acc_mean', 'gyro_sd']) expect(col(fromBlob.table, name)).toEqual(col(fromBytes.table, name));
     expect(col(fromBlob.table, 'acc_mean')[2999]).toBe('749.75');
     expect(fromBlob.roles).toEqual(fromBytes.roles);
-    expect(stages).toContain('decoding');
+    expect(stages).toContain('reading');
+    expect(stages).toContain('parsing: decoding');
   });
 });
 

@@ -9,13 +9,16 @@ const matrix: FeatureMatrix = { data: Float64Array.from(values), n: 12, d: 1, fe
 const coords = new Float32Array(24);
 
 describe('recut job', () => {
-  it('gives an index without windows (a gap a re-cut leaves) no centre: confidence equals that of the compact labels', async () => {
+  it('gives an index without windows (a gap a re-cut leaves) no centre: confidence and silhouette equal those of the compact labels', async () => {
     const compact = Int32Array.from([0, 0, 0, 0, 1, 1, 1, 1, 2, 2, 2, 2]);
     // The same clusters as indices 0, 3 and 5: indices 1, 2 and 4 have no window.
     const gapped = Int32Array.from(compact, (c) => [0, 3, 5][c]);
     const a = await recutJob({ matrix, params: DEFAULT_ANALYSIS_PARAMS, labels: compact, coords }, quietContext);
     const b = await recutJob({ matrix, params: DEFAULT_ANALYSIS_PARAMS, labels: gapped, coords }, quietContext);
     expect(Array.from(b.confidence)).toEqual(Array.from(a.confidence));
+    // The silhouette numbers clusters itself: the same with or without the gaps.
+    expect(b.silhouette).toBe(a.silhouette);
+    expect(a.silhouette).toBeGreaterThan(0.5);
     // Every window is nearer its own group's centre than any other: confidence well above 0.
     for (const c of a.confidence) expect(c).toBeGreaterThan(0.5);
     // Means: one row per index, zeros for the empty ones, the groups' means where they are.

@@ -91,6 +91,32 @@ describe('serveJobs + JobClient over a Node MessageChannel', () => {
     expect(events[events.length - 1].fraction).toBe(1);
   });
 
+  it('names every stage: the first report of a new stage goes through the throttle, with its detail', async () => {
+    // A clock that stands still: every report after the first falls inside the throttle's 100 ms.
+    const channel = new MessageChannel();
+    channels.push(channel);
+    const staged = {
+      async staged(_payload: unknown, ctx: JobContext) {
+        ctx.progress('embedding', 0.1, 'UMAP · epoch 198 / 200');
+        ctx.progress('embedding', 0.2, 'UMAP · epoch 199 / 200');
+        ctx.progress('placing', 0.3, '0 / 5,000 windows');
+        ctx.progress('placing', 0.4, '2,000 / 5,000 windows');
+        ctx.progress('quality', 0.5);
+        ctx.progress('quality', 0.6);
+        return {};
+      },
+    } satisfies Record<string, JobHandler>;
+    serveJobs(portLike<ToHost, FromHost>(channel.port2), staged, () => 1000);
+    const client = new JobClient<typeof staged>(portLike<FromHost, ToHost>(channel.port1));
+    const events: Progress[] = [];
+    await client.run('staged', {}, { onProgress: (p) => events.push(p) }).result;
+    expect(events).toEqual([
+      { stage: 'embedding', fraction: 0.1, detail: 'UMAP · epoch 198 / 200' },
+      { stage: 'placing', fraction: 0.3, detail: '0 / 5,000 windows' },
+      { stage: 'quality', fraction: 0.5 },
+    ]);
+  });
+
   it('transfers payload buffers instead of copying them', async () => {
     const client = setup();
     const bytes = new Uint8Array([1, 2, 3, 250]);

@@ -1,16 +1,9 @@
-import { buildProvenance } from '../../core/export/provenance';
-import { weakLabelsCsv } from '../../core/export/weak-labels';
-import { DEFAULT_RECIPE, type Recipe } from '../../core/recipe/recipe.types';
 import type { Table } from '../../core/table/table';
 import type { FileToWrite } from '../../host/host';
-import type { Run, Source } from '../../core/run/run.types';
 import { CAUTIONS } from '../../core/cautions';
 import { studyExports } from '../../core/export/study-exports';
 import { studyReportHtml, type ReportCluster, type ReportFigure } from '../../core/export/study-report';
 import type { Study } from '../../core/study/study.types';
-import type { CurationState } from '../../core/curation/curation.types';
-import type { ClusterIdentity } from '../../core/export/run-model';
-import { keepRows } from '../../core/recipe/keep-rows';
 import type { ViewFigure } from './figures';
 import { mapPng, mapSvg, type MapFigureInput } from './map-figure';
 import { svgToPng } from './svg-png';
@@ -19,51 +12,6 @@ import { svgToPng } from './svg-png';
 export function baseName(fileName: string): string {
   const dot = fileName.lastIndexOf('.');
   return dot > 0 ? fileName.slice(0, dot) : fileName;
-}
-
-/** The weak-label table and its provenance, ready for host.saveFiles. */
-export function weakLabelFiles(args: {
-  source: Source;
-  table: Table;
-  run: Run;
-  /** The curation shown (curation.svelte.ts): labels per analysed window and each cluster's identity. */
-  state: CurationState;
-  identities: readonly ClusterIdentity[];
-  appVersion: string;
-  createdAt: string;
-}): FileToWrite[] {
-  const { source, run, state, identities } = args;
-  const { table, roles } = run.result.windows ? keepRows(args.table, run.roles, run.result.windows) : { table: args.table, roles: run.roles };
-  const csv = weakLabelsCsv({ table, roles, result: run.result, identities, labels: state.labels });
-  const provenance = buildProvenance({
-    input: { fileName: source.fileName, sha256: source.sha256, rows: table.nRows, features: run.featureNames.length },
-    roles: run.roles,
-    params: run.params,
-    result: run.result,
-    identities,
-    appVersion: args.appVersion,
-    createdAt: args.createdAt,
-  });
-  const base = baseName(source.fileName);
-  const withRecipe = withRecipeSpec(provenance, run.params.recipe ?? DEFAULT_RECIPE);
-  return [
-    { name: `${base}-weak-labels.csv`, data: csv },
-    { name: `${base}-provenance.json`, data: `${JSON.stringify(withRecipe, null, 2)}\n` },
-  ];
-}
-
-/**
- * Adds `recipeSpec` right after `recipe` (the steps as applied, with their effects): the recipe as
- * the user wrote it, `{ "version": 1, "steps": [...] }`, which `gleaner analyze --recipe` reads back.
- */
-function withRecipeSpec(provenance: Record<string, unknown>, recipe: Recipe): Record<string, unknown> {
-  const out: Record<string, unknown> = {};
-  for (const [key, value] of Object.entries(provenance)) {
-    out[key] = value;
-    if (key === 'recipe') out.recipeSpec = recipe;
-  }
-  if (!('recipeSpec' in out)) out.recipeSpec = recipe;
-  return out;
 }
 
 /** What the Export dialog writes: the study exports of the shown run, the report and the figures. */

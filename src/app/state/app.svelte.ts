@@ -2,11 +2,9 @@ import type { AnalysisPartial } from '../../core/analysis.types';
 import type { Host, InputFile } from '../../host/host';
 import type { JobClient, RunningJob } from '../../worker/client';
 import type { Jobs, ParseResult } from '../../worker/jobs';
-import { version } from '../../../package.json';
+import { READ_SHARE } from '../../core/input/parse-input';
 import { featureMatrix } from '../../core/table/matrix';
-import { isoNow } from '../lib/clock';
 import { describeError, isCancelled } from '../lib/errors';
-import { weakLabelFiles } from '../lib/export-files';
 import { ownBuffer } from '../lib/hash';
 import { QualityState } from './quality.svelte';
 import { Curation } from './curation.svelte';
@@ -78,7 +76,11 @@ export class AppState {
   async openDemo(runAfter: boolean): Promise<void> {
     try {
       const file = await this.host.loadDemo();
-      if ((await this.openFile(file)) && runAfter) await this.runAnalysis();
+      if ((await this.openFile(file)) && runAfter) {
+        await this.runAnalysis();
+        // The demo opens as a finished study: its first run is part of opening it, not a change.
+        if (this.study.run) this.studyFile.markClean();
+      }
     } catch (err) {
       this.status.fail('Could not load the demo study', describeError(err, 'demo study'), 'Nothing was opened.');
     }
@@ -100,7 +102,8 @@ export class AppState {
       const bytes = 'blob' in file ? null : ownBuffer(file.bytes);
       job = this.client.run('parse', bytes ? { fileName: file.name, bytes } : { fileName: file.name, blob: (file as { blob: Blob }).blob }, {
         transfer: bytes ? [bytes.buffer] : [],
-        onProgress: (p) => this.status.progress(p.stage === 'reading' ? `reading ${mib(p.fraction * size)} of ${mib(size)}` : p.stage, p.fraction),
+        // Reading takes the first READ_SHARE of the parse job's bar: that much = every byte read.
+        onProgress: (p) => this.status.progress(p.stage, p.fraction, p.stage === 'reading' ? `${mib(Math.min(1, p.fraction / READ_SHARE) * size)} of ${mib(size)}` : p.detail),
       });
       this.current = job;
       const { table, roles, warnings, sha256 } = await job.result;
@@ -139,11 +142,10 @@ export class AppState {
     }
     const featureNames = matrix.featureNames;
     this.status.start(`Running ${runDescription(params)} on ${matrix.n} windows…`);
-    this.live.start(performance.now());
+    this.live.start();
     const job = this.client.run('analyze', { matrix, params, cacheKey: matrixKey(source.sha256, roles) }, {
       onProgress: (p) => {
-        this.status.progress(p.stage, p.fraction);
-        this.live.tick(performance.now(), p.fraction);
+        this.status.progress(p.stage, p.fraction, p.detail);
       },
       onPartial: (value) => {
         if (this.current === job) this.live.offer(value as AnalysisPartial);
@@ -183,25 +185,6 @@ export class AppState {
     };
     job.result.then(release, release);
     return job;
-  }
-
-  async exportLabels(): Promise<void> {
-    const { table, source, run } = this.study;
-    const state = this.curation.state;
-    if (!table || !source || !run || !state) return;
-    try {
-      const files = weakLabelFiles({
-        source, table, run, state,
-        identities: this.curation.identities,
-        appVersion: version,
-        createdAt: isoNow(),
-      });
-      const outcome = await this.host.saveFiles(source.fileName, files);
-      if (outcome) this.status.finish(`Exported ${outcome.names.join(' and ')} to ${outcome.location}.`);
-      else this.status.finish('Export cancelled.');
-    } catch (err) {
-      this.status.fail('Export failed', describeError(err, source.fileName), 'Nothing was exported.');
-    }
   }
 
   /** Jobs started by name since start (the test hook shows them). */

@@ -17,6 +17,16 @@ import { candidateName, clusterIdentities, type ClusterIdentity } from '../../co
 import { keepRows } from '../../core/recipe/keep-rows';
 import type { Roles } from '../../core/table/roles.types';
 import type { Table } from '../../core/table/table';
+import { recipeInput } from './recipe.svelte';
+
+/** The mean silhouette the cluster list shows: the run's, or one measured on the curated clusters. */
+export interface ShownSilhouette {
+  value: number;
+  /** Being measured for the clusters shown (the previous figure would be stale). */
+  pending: boolean;
+  /** Measured on the curated clusters rather than the run's own. */
+  curated: boolean;
+}
 
 /** Up to this many clusters get their own Map colour slot (the Map's colour index is one byte). */
 const MAP_SLOTS = 255;
@@ -50,6 +60,9 @@ export class Curation {
   revision = $state(0);
   /** A split is running in the worker. */
   splitting = $state(false);
+  /** The silhouette measured on curated labels (the labels array it was measured on). */
+  private measured = $state.raw<{ labels: Int32Array; silhouette: number } | null>(null);
+  private measuring: Int32Array | null = null;
 
   constructor(private readonly deps: CurationDeps, private readonly client: JobClient<Jobs>) {
     deps.study.namer = (c) => this.displayName(c);
@@ -142,6 +155,50 @@ export class Curation {
       this.analysedCache.set(run, a);
     }
     return a;
+  }
+
+  /**
+   * The mean silhouette of the clusters shown: the run's own until windows move (merge, split,
+   * move), then measured again on the curated labels in the worker (`ensureSilhouette`).
+   */
+  get silhouette(): ShownSilhouette | null {
+    const run = this.deps.study.run;
+    const labels = this.labels;
+    if (!run || !labels) return null;
+    if (labels === run.result.labels || this.sameAsRun(labels, run.result.labels)) {
+      return { value: run.result.metrics.silhouette, pending: run.result.metrics.silhouetteSampleSize === 0, curated: false };
+    }
+    const m = this.measured;
+    if (m && m.labels === labels) return { value: m.silhouette, pending: false, curated: true };
+    return { value: NaN, pending: true, curated: true };
+  }
+
+  /** Asks the worker for the silhouette of the curated labels when they differ from the run's and were not measured yet. */
+  ensureSilhouette(): void {
+    const run = this.deps.study.run, table = this.deps.study.table;
+    const labels = this.labels;
+    if (!run || !table || !labels || this.sameAsRun(labels, run.result.labels)) return;
+    if (this.measured?.labels === labels || this.measuring === labels) return;
+    this.measuring = labels;
+    let matrix;
+    try {
+      matrix = recipeInput(table, run.roles).matrix;
+    } catch {
+      return; // the roles no longer give a matrix: the list says the figure is pending
+    }
+    const job = this.client.run('silhouette', { matrix, params: run.params, labels: labels.slice() }, { transfer: [matrix.data.buffer] });
+    job.result.then(
+      (r) => { if (this.measuring === labels) { this.measured = { labels, silhouette: r.silhouette }; this.measuring = null; } },
+      () => { if (this.measuring === labels) this.measuring = null; },
+    );
+  }
+
+  /** Curated labels equal to the run's (nothing moved, or moves undone). */
+  private sameAsRun(labels: Int32Array, runLabels: Int32Array): boolean {
+    if (labels === runLabels) return true;
+    if (labels.length !== runLabels.length) return false;
+    for (let i = 0; i < labels.length; i++) if (labels[i] !== runLabels[i]) return false;
+    return true;
   }
 
   /** Indices of clusters still in use (not emptied by a merge or a move). */

@@ -165,7 +165,7 @@ export class Runs {
     app.status.start(`Re-running ${base.name} with per-subject scaling on ${matrix.n} windows…`);
     try {
       const job = app.track(this.client.run('analyze', { matrix, params }, {
-        onProgress: (p) => app.status.progress(p.stage, p.fraction),
+        onProgress: (p) => app.status.progress(p.stage, p.fraction, p.detail),
       }));
       const result = await job.result;
       app.study.setRun({ result, params, roles, featureNames: matrix.featureNames });

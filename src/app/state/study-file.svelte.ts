@@ -68,7 +68,8 @@ export class StudyFile {
   exportOpen = $state(false);
   /** Autosaves written since start (tests wait on it). */
   autosaves = $state(0);
-  private savedSignature = '';
+  /** Reactive, so the save marker updates the moment a save or open sets it. */
+  private savedSignature = $state('');
   private autosavedSignature = '';
   private timer: ReturnType<typeof setInterval> | null = null;
 
@@ -78,6 +79,12 @@ export class StudyFile {
   signature(): string {
     const app = this.deps;
     return `${app.study.source?.sha256 ?? ''}|${app.study.kept.length}|${app.study.run ? app.study.kept.findIndex((k) => k.run === app.study.run) : -1}|${app.curation.revision}|${app.map.colourBy}|${app.dock.view}|${app.params.k},${app.params.seed},${app.params.restarts}`;
+  }
+
+  /** Takes the study as it is now as the saved state (a study that opens finished, such as the demo). */
+  markClean(): void {
+    this.savedSignature = this.signature();
+    this.autosavedSignature = this.savedSignature;
   }
 
   get dirty(): boolean {

@@ -164,7 +164,8 @@ export class TreeCut {
     const old = run.result.cluster;
     if (old.method !== 'hierarchical') return;
     const cluster: ClusterRecord = { method: 'hierarchical', linkage: old.linkage, k: slots, path: old.path, space: old.space };
-    const result: AnalysisResult = { ...run.result, labels, sizes, cluster };
+    // The silhouette belongs to the old cut: unknown (NaN, sample 0) until the worker measures this one (commit).
+    const result: AnalysisResult = { ...run.result, labels, sizes, cluster, metrics: { ...run.result.metrics, silhouette: NaN, silhouetteSampleSize: 0 } };
     const next: Run = { ...run, result, params: { ...run.params, k, cluster: { method: old.linkage, k } } };
     // Notes of every cluster that keeps (or takes back) an identity.
     const notes: (Readonly<ClusterNote> | undefined)[] = new Array(slots);
@@ -247,9 +248,9 @@ export class TreeCut {
     });
     this.newest.start(job);
     try {
-      const { confidence, centroids } = await job.result;
+      const { confidence, centroids, silhouette, silhouetteSampleSize } = await job.result;
       if (study.run !== run) return; // the cut moved on, or another run is shown
-      const next: Run = { ...run, result: { ...run.result, confidence, centroids } };
+      const next: Run = { ...run, result: { ...run.result, confidence, centroids, metrics: { ...run.result.metrics, silhouette, silhouetteSampleSize } } };
       const untouched = this.revisionAt === this.deps.curation.revision;
       this.replace(run, next, true);
       if (this.latest === run) {

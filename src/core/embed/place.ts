@@ -1,6 +1,7 @@
 import { OptionError } from '../errors';
 import { quietContext, type JobContext } from '../job';
 import type { Random } from '../random';
+import { grouped } from '../progress/format';
 
 /**
  * Sample then place, for studies too large to embed whole: embed a seeded sample stratified by
@@ -89,7 +90,7 @@ export async function placeWindows(
   const bestI = new Int32Array(k);
   const todo = n - m;
   let done = 0;
-  ctx.progress('placing', 0);
+  ctx.progress('placing', 0, `0 / ${grouped(todo)} windows`);
   for (let from = 0; from < n; from += ROWS_PER_SLICE) {
     const to = Math.min(n, from + ROWS_PER_SLICE);
     for (let i = from; i < to; i++) {
@@ -110,7 +111,7 @@ export async function placeWindows(
       coords[2 * i + 1] = wy / wSum;
       done++;
     }
-    ctx.progress('placing', todo > 0 ? done / todo : 1);
+    ctx.progress('placing', todo > 0 ? done / todo : 1, `${grouped(done)} / ${grouped(todo)} windows`);
     await ctx.checkpoint();
   }
   return { coords, placed };

@@ -1,5 +1,6 @@
 import type { AnalysisParams, AnalysisResult } from '../analysis.types';
 import { CAUTIONS } from '../cautions';
+import { DEFAULT_RECIPE } from '../recipe/recipe.types';
 import type { Roles } from '../table/roles.types';
 import { exportedClusterRecord, identityRecord, type ClusterIdentity } from './run-model';
 
@@ -40,6 +41,8 @@ export function buildProvenance(p: ProvenanceInput): Record<string, unknown> {
     input: { ...p.input },
     roles: p.roles.map((r) => ({ column: r.name, role: r.role })),
     recipe: result.recipe.map((s) => ({ step: s.step, params: s.params, effect: s.effect })),
+    // The recipe as the user wrote it ({ version, steps }), which `gleaner analyze --recipe` reads back.
+    recipeSpec: params.recipe ?? DEFAULT_RECIPE,
     embed: { ...result.embed, seed: params.seed },
     cluster: { space: 'features', ...exportedClusterRecord(result.cluster), seed: params.seed, silhouetteSample: params.silhouetteSample },
     ...(result.placed ? { placedWindows: result.placed.reduce((s, v) => s + v, 0) } : {}),

@@ -31,6 +31,12 @@ export interface ParseResult {
   sha256: string;
 }
 
+/**
+ * Shares of the parse job's progress: reading the bytes (text is split into rows on the way), then
+ * parsing (columns built, Parquet/Arrow decoded, roles inferred, the table checked, the hash).
+ */
+export const READ_SHARE = 0.9;
+
 /** Text is parsed this many bytes at a time, with progress and a cancel check in between. */
 const SLICE = 4 * 1024 * 1024;
 
@@ -62,7 +68,9 @@ export async function parseInput(payload: ParseJob, ctx: JobContext, blobHasher:
   const elsewhere: RunningBlobHash | null = blob && blobHasher ? blobHasher(blob) : null;
   const hash = createSha256();
   const formatOf = (first: Uint8Array) => (payload.format !== undefined ? tableFormat(payload.format) : detectFormat(payload.fileName, first));
-  const decoding: JobContext = { progress: (_stage, f) => ctx.progress('decoding', f), checkpoint: () => ctx.checkpoint() };
+  // Parquet read by offset decodes as it reads: its whole progress is the reading share.
+  const decodingWhileReading: JobContext = { progress: (_stage, f) => ctx.progress('parsing', READ_SHARE * f, 'decoding'), checkpoint: () => ctx.checkpoint() };
+  const decoding: JobContext = { progress: (_stage, f) => ctx.progress('parsing', READ_SHARE + 0.08 * (1 - READ_SHARE) * f, 'decoding'), checkpoint: () => ctx.checkpoint() };
   ctx.progress('reading', 0);
   let table: Table;
   try {
@@ -71,7 +79,7 @@ export async function parseInput(payload: ParseJob, ctx: JobContext, blobHasher:
       // A File read by offset (Parquet): one row group in memory at a time, hashed on the way.
       const source = blobSource(blob);
       const hashing = elsewhere ? null : hashingSource(source, hash);
-      table = await readTableSource(blobFormat, payload.fileName, hashing ?? source, { totalBytes: total, ...payload.options }, decoding);
+      table = await readTableSource(blobFormat, payload.fileName, hashing ?? source, { totalBytes: total, ...payload.options }, decodingWhileReading);
       await hashing?.finish();
     } else {
       let reader: ReturnType<typeof createTableReader> | null = null;
@@ -79,17 +87,20 @@ export async function parseInput(payload: ParseJob, ctx: JobContext, blobHasher:
         reader ??= createTableReader(blobFormat ?? formatOf(slice), payload.fileName, { totalBytes: total, ...payload.options });
         if (!elsewhere) hash.update(slice);
         reader.push(slice);
-        ctx.progress('reading', reader.bytesConsumed / Math.max(1, total));
+        ctx.progress('reading', READ_SHARE * (reader.bytesConsumed / Math.max(1, total)));
         await ctx.checkpoint();
       }
       reader ??= createTableReader(blobFormat ?? formatOf(new Uint8Array(0)), payload.fileName, { totalBytes: total, ...payload.options });
+      ctx.progress('parsing', READ_SHARE, 'columns');
       table = await reader.finish(decoding);
     }
+    ctx.progress('parsing', READ_SHARE + 0.8 * (1 - READ_SHARE), 'roles and checks');
     const roles = inferRoles(table, payload.overrides);
     const warnings = checkTable(table, roles);
+    ctx.progress('parsing', READ_SHARE + 0.9 * (1 - READ_SHARE), 'SHA-256');
     // Should the hashing thread fail, the file is hashed here after all.
     const sha256 = elsewhere && blob ? await elsewhere.digest.catch(() => hashBlob(blob)) : hash.hex();
-    ctx.progress('reading', 1);
+    ctx.progress('parsing', 1);
     return { table, roles, warnings, sha256 };
   } catch (err) {
     elsewhere?.stop();

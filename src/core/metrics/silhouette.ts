@@ -74,3 +74,18 @@ function compact(labels: ArrayLike<number>, n: number): { codes: Int32Array; cou
   }
   return { codes, count: ids.size };
 }
+
+/**
+ * Mean silhouette of the windows `sample` picks from a row-major n × d matrix (the run's way of
+ * keeping the O(m²) silhouette affordable on large tables).
+ */
+export function silhouetteOfSample(data: Float64Array, d: number, sample: Int32Array, labels: ArrayLike<number>): number {
+  const m = sample.length;
+  const sampled = new Float64Array(m * d);
+  const sampledLabels = new Int32Array(m);
+  for (let s = 0; s < m; s++) {
+    sampled.set(data.subarray(sample[s] * d, sample[s] * d + d), s * d);
+    sampledLabels[s] = labels[sample[s]];
+  }
+  return mean(silhouetteSamples({ data: sampled, n: m, d }, sampledLabels));
+}

@@ -40,7 +40,7 @@ export interface ClusterOutput {
  * centroids are cluster means of the scaled features whatever the space.
  */
 export async function clusterStage(
-  input: ClusterInput, choices: PipelineChoices, random: Random, ctx: JobContext, report: (f: number) => void,
+  input: ClusterInput, choices: PipelineChoices, random: Random, ctx: JobContext, report: (f: number, detail?: string) => void,
 ): Promise<ClusterOutput> {
   const { n, d, data } = input;
   const space: ClusterSpace = choices.space;
@@ -49,7 +49,7 @@ export async function clusterStage(
   const c = choices.cluster;
   if (c.method === 'kmeans') {
     if (n < c.k) throw new OptionError('k', c.k, `at most the number of windows the recipe keeps (${n})`);
-    const km = await kmeans(x, n, dx, { k: c.k, restarts: c.restarts, maxIterations: c.maxIterations, tol: KMEANS_TOL, random }, ctx, report);
+    const km = await kmeans(x, n, dx, { k: c.k, restarts: c.restarts, maxIterations: c.maxIterations, tol: KMEANS_TOL, random }, ctx, (f) => report(f, 'k-means'));
     const { labels, centres, sizes } = relabelBySize(km.labels, km.centres, c.k, dx);
     const confidence = centreConfidence(x, n, dx, centres, c.k);
     const record: ClusterRecord = {
@@ -59,7 +59,7 @@ export async function clusterStage(
     return { record, labels, confidence, centroids: space === 'map' ? clusterMeans(data, n, d, labels, c.k) : centres, sizes };
   }
 
-  const treeCtx: JobContext = { checkpoint: () => ctx.checkpoint(), progress: (_stage, f) => report(f) };
+  const treeCtx: JobContext = { checkpoint: () => ctx.checkpoint(), progress: (stage, f) => report(f, stage) };
   if (c.method === 'hdbscan') return hdbscanStage(input, x, dx, c, choices, treeCtx);
   const h = await clusterHierarchy(x, n, dx, { linkage: c.method, seed: input.seed }, treeCtx);
   const { tree, assignment } = h;

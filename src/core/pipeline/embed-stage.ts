@@ -27,8 +27,11 @@ export interface EmbedOutput {
   placed?: Uint8Array;
 }
 
-/** `report(fraction)` maps the embedding's own 0..1 onto the job's progress bar under `stage`. */
-export type StageReport = (stage: string, fraction: number) => void;
+/**
+ * `report(stage, fraction, detail)` maps the embedding's own 0..1 onto the job's progress bar:
+ * stage 'embedding' (the method and what it is at in the detail) or 'placing' (windows placed).
+ */
+export type StageReport = (stage: 'embedding' | 'placing', fraction: number, detail?: string) => void;
 
 /**
  * The map: PCA (two axes of the scaled features), or t-SNE / UMAP on the features projected onto
@@ -39,6 +42,7 @@ export async function embedStage(input: EmbedInput, choices: PipelineChoices, ct
   const { data, n, d } = input;
   const e = choices.embed;
   if (e.method === 'pca') {
+    report('embedding', 0, 'PCA');
     const p = pca(data, n, d, 2);
     const coords = new Float32Array(2 * n);
     for (let i = 0; i < n; i++) {
@@ -52,7 +56,7 @@ export async function embedStage(input: EmbedInput, choices: PipelineChoices, ct
   // Pre-reduction: PCA onto preReduce axes when there are more features (recorded in provenance).
   let x = data, dim = d, preReduced: number | null = null;
   if (d > choices.preReduce) {
-    report('pre-reducing', 0);
+    report('embedding', 0, `PCA to ${choices.preReduce} axes before ${e.method === 'tsne' ? 't-SNE' : 'UMAP'}`);
     x = pca(data, n, d, choices.preReduce).scores;
     dim = choices.preReduce;
     preReduced = choices.preReduce;
@@ -71,7 +75,7 @@ export async function embedStage(input: EmbedInput, choices: PipelineChoices, ct
   const layoutShare = sampling ? 0.8 : 1;
   const layoutCtx: JobContext = {
     checkpoint: () => ctx.checkpoint(),
-    progress: (stage, f) => report(stage, layoutShare * f),
+    progress: (stage, f, detail) => report('embedding', layoutShare * f, detail ? `${stage} · ${detail}` : stage),
   };
   const offer = (coords: Float32Array, unit: AnalysisPartial['unit'], step: number, steps: number, cost?: number) => {
     if (!ctx.partial || !ctx.wantsPartial?.()) return;
@@ -113,7 +117,7 @@ export async function embedStage(input: EmbedInput, choices: PipelineChoices, ct
 
   const placedRun = await placeWindows(x, n, dim, sample, layout, {
     k: PLACE_NEIGHBOURS,
-    ctx: { checkpoint: () => ctx.checkpoint(), progress: (_s, f) => report('placing', layoutShare + (1 - layoutShare) * f) },
+    ctx: { checkpoint: () => ctx.checkpoint(), progress: (_s, f, detail) => report('placing', layoutShare + (1 - layoutShare) * f, detail) },
   });
   const samplingRecord: SamplingRecord = {
     threshold: choices.sampleAbove, embedded: m, placed: n - m, neighbours: PLACE_NEIGHBOURS,

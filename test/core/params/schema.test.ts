@@ -13,10 +13,10 @@ import { LINKAGES } from '../../../src/core/cluster/hierarchy/merge-tree';
 import { TSNE_DEFAULTS } from '../../../src/core/embed/tsne/options';
 import { UMAP_DEFAULTS } from '../../../src/core/embed/umap/options';
 import { OptionError } from '../../../src/core/errors';
-import { accepts, checkParam, INPUT_PARAMS, PANEL_PARAMS, PARAMS, parseFlag, type ParamSpec } from '../../../src/core/params';
+import { accepts, checkParam, INPUT_PARAMS, PANEL_PARAMS, PARAMS, parseFlag, STABILITY_PARAMS, type ParamSpec } from '../../../src/core/params';
 
 const ROOT = join(import.meta.dirname, '../../..');
-const ALL: ParamSpec[] = [...Object.values(PARAMS), ...Object.values(INPUT_PARAMS)];
+const ALL: ParamSpec[] = [...Object.values(PARAMS), ...Object.values(INPUT_PARAMS), ...Object.values(STABILITY_PARAMS)];
 
 describe('the parameter schema', () => {
   it('names every parameter and flag once, and each default passes its own rule', () => {

@@ -39,7 +39,7 @@ export async function runTsne(
     const { x, dim } = reduceForTsne(data, n, d, o);
     const progressCtx: JobContext = {
       checkpoint: () => ctx.checkpoint(),
-      progress: (_stage, fraction) => ctx.progress('t-SNE', PREPARE_SHARE * 0.9 * fraction),
+      progress: (_stage, fraction) => ctx.progress('t-SNE', PREPARE_SHARE * 0.9 * fraction, 'neighbours'),
     };
     const knn = await approximateKnnLocal(x, n, dim, approximateNeighboursFor(o.perplexity, n), {
       metric: 'euclidean', random: seededRandom(o.seed + 0x5eed), ctx: progressCtx, ...NN_DESCENT,
@@ -47,7 +47,7 @@ export async function runTsne(
     given = { x, dim, knn };
   }
   for (const fraction of tsne.initSlices(given)) {
-    ctx.progress('t-SNE', PREPARE_SHARE * fraction);
+    ctx.progress('t-SNE', PREPARE_SHARE * fraction, 'affinities');
     await ctx.checkpoint();
   }
   const total = o.iterations;
@@ -60,7 +60,7 @@ export async function runTsne(
       r = parts.next();
     }
     if (!r.value) break;
-    ctx.progress('t-SNE', PREPARE_SHARE + (1 - PREPARE_SHARE) * (tsne.iteration / total));
+    ctx.progress('t-SNE', PREPARE_SHARE + (1 - PREPARE_SHARE) * (tsne.iteration / total), `iteration ${tsne.iteration} / ${total}`);
     if (onFrame && (tsne.iteration % FRAME_EVERY === 0 || tsne.finished)) onFrame(tsne.coords(), tsne.iteration, tsne.cost);
     await ctx.checkpoint();
   }

@@ -27,7 +27,7 @@ export async function runUmap(
     checkpoint: () => ctx.checkpoint(),
     progress(stage, fraction) {
       const span = STAGES[stage as keyof typeof STAGES];
-      if (span) ctx.progress('UMAP', span[0] + (span[1] - span[0]) * fraction);
+      if (span) ctx.progress('UMAP', span[0] + (span[1] - span[0]) * fraction, stage);
     },
   };
   ctx.progress('UMAP', 0);
@@ -39,7 +39,7 @@ export async function runUmap(
     const before = umap.epoch;
     more = umap.stepEdges(EDGES_PER_SLICE);
     if (umap.epoch !== before) {
-      ctx.progress('UMAP', start + (1 - start) * (umap.epoch / umap.epochs));
+      ctx.progress('UMAP', start + (1 - start) * (umap.epoch / umap.epochs), `epoch ${umap.epoch} / ${umap.epochs}`);
       onFrame?.(umap.coords(), umap.epoch);
     }
   }
