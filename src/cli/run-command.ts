@@ -18,6 +18,7 @@ import { readInputStep } from './read-input';
 import { attachSubjects } from './recipe-options';
 import { VERSION } from './version';
 import { writeFileAtomic } from './write-atomic';
+import { withSavedIdentities } from '../core/curation/carry-identities';
 
 const RUN_ID: ParamSpec<string> = { name: 'run', flag: 'run', meta: '<id>', kind: 'text', default: '', help: ['only this run (default: every run)'] };
 const INPUT: ParamSpec<string> = {
@@ -116,7 +117,8 @@ export async function runStudy(opts: RunCommandOptions, deps: { progress: Progre
       progress: (stage, f, detail) => bar.update(`${run.id}: ${stage}`, f, detail),
       checkpoint: () => new Promise((res, rej) => setImmediate(() => (deps.cancelled() ? rej(new CancelledError()) : res()))),
     };
-    const result = await analyze(matrix, run.params as unknown as AnalysisParams, ctx).finally(() => bar.finish());
+    // A tree cut again is numbered by lowest leaf; the saved run numbers its clusters as the app kept them.
+    const result = withSavedIdentities(run.result, await analyze(matrix, run.params as unknown as AnalysisParams, ctx).finally(() => bar.finish()));
     if (!sameLabels(result.labels, run.result.labels)) {
       differing.push(run.id);
       deps.warn(`run ${run.id}: the recomputed clusters differ from the saved ones; the exports use the recomputed ones`);

@@ -10,7 +10,10 @@ export interface RecutJob {
   /** The run's feature matrix (before its recipe) and parameters. */
   matrix: FeatureMatrix;
   params: AnalysisParams;
-  /** The new cut: cluster per analysed window, 0..k-1. */
+  /**
+   * The new cut: cluster index per analysed window. A re-cut keeps identities, so some indices
+   * below the highest may have no window (a cluster merged away); they are no centre.
+   */
   labels: Int32Array;
   /** Map coordinates, used when the run clustered in map space. */
   coords: Float32Array;
@@ -21,7 +24,7 @@ export interface RecutResult {
   silhouette: number;
   silhouetteSampleSize: number;
   confidence: Float32Array;
-  /** k × d means of the scaled features. */
+  /** k × d means of the scaled features (k = highest index + 1; a row of zeros for an index without windows). */
   centroids: Float64Array;
 }
 
@@ -43,7 +46,13 @@ export async function recutJob(job: RecutJob, ctx: JobContext): Promise<RecutRes
   const x = map ? Float64Array.from(coords) : data;
   const dx = map ? 2 : d;
   const centroids = clusterMeans(data, n, d, labels, k);
-  const confidence = centreConfidence(x, n, dx, map ? clusterMeans(x, n, dx, labels, k) : centroids, k);
+  // Confidence against the centres of clusters that have windows only (an empty index has no centre).
+  const live = new Int32Array(k).fill(-1);
+  let m = 0;
+  for (let i = 0; i < n; i++) if (live[labels[i]] < 0) live[labels[i]] = m++;
+  const compact = m === k ? labels : Int32Array.from(labels, (c) => live[c]);
+  const centres = m === k && !map ? centroids : clusterMeans(x, n, dx, compact, m);
+  const confidence = centreConfidence(x, n, dx, centres, m);
   ctx.progress('silhouette', 0.75);
   return { confidence, centroids, ...labelsSilhouette(data, n, d, labels, params) };
 }

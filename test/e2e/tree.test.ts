@@ -94,10 +94,13 @@ describe('Tree and k sweep, end to end', () => {
     expect(Number(await canvas.getAttribute('data-cut-at'))).toBeGreaterThan(cutY);
     await expect.poll(() => page.getByTestId('tree-k').textContent()).toBe(String(s.k));
 
-    // Hover a branch: scan across the upper part of the tree until the pointer is on one.
+    // Hover a branch: scan across the upper part of the tree (above the cut line, clear of its
+    // grab zone) until the pointer is on one.
+    const scanY = Number(await canvas.getAttribute('data-cut-at')) - 24;
+    expect(scanY).toBeGreaterThan(20);
     let lit = 0;
     for (let px = 60; px < box.width - 20 && lit === 0; px += 3) {
-      await page.mouse.move(box.x + px, box.y + box.height * 0.3);
+      await page.mouse.move(box.x + px, box.y + scanY);
       lit = (await hook(page)).highlightSize;
     }
     expect(lit).toBeGreaterThan(0);

@@ -60,7 +60,7 @@ export class AppState {
     this.curation = curation;
     this.runs = new Runs({ study, curation, status, selection, map, track: (job) => this.track(job), ranOne: () => void this.runCount++ }, this.client);
     this.studyFile = new StudyFile({ study, curation, map, dock, params, selection, status, host, openFile: (file) => this.openFile(file) });
-    this.treeCut = new TreeCut({ study, params, status }, this.client);
+    this.treeCut = new TreeCut({ study, params, status, curation }, this.client);
     this.sweep = new SweepState({ study, params, runAnalysis: () => this.runAnalysis() }, this.client);
   }
 

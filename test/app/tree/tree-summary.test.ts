@@ -5,7 +5,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { hierarchical } from '../../../src/core/cluster/hierarchy';
-import { clustersAtHeight, heightForClusters } from '../../../src/app/views/tree/cut-line';
+import { CUT_RATES, clustersAtHeight, clustersForDrag, heightForClusters } from '../../../src/app/views/tree/cut-line';
 import { summarise } from '../../../src/app/views/tree/summary';
 import { indexTree, rootOf, windowsUnder } from '../../../src/app/views/tree/tree-index';
 
@@ -30,6 +30,20 @@ describe('tree cut line', () => {
     for (const k of [2, 4, 8, 12]) expect(clustersAtHeight(tree, heightForClusters(tree, k))).toBe(k);
     // Two merges tie at 5.77350269, so no height leaves exactly 3 clusters: the line lands on the tie (2).
     expect(clustersAtHeight(tree, heightForClusters(tree, 3))).toBe(2);
+  });
+});
+
+describe('dragging the cut by merge steps', () => {
+  it('moves one merge per rate pixels, whole steps only, within 2..max', () => {
+    // Start at 8 clusters, 10 px per merge: 45 px towards the leaves opens 4 merges (12), not 12.
+    expect(clustersForDrag(8, 45, 10, 255)).toBe(12);
+    expect(clustersForDrag(8, 9, 10, 255)).toBe(8);
+    expect(clustersForDrag(8, -45, 10, 255)).toBe(4);
+    expect(clustersForDrag(8, -1000, 10, 255)).toBe(2);
+    expect(clustersForDrag(8, 1000, 10, 20)).toBe(20);
+    // The fine rate needs 24 px a step: the same 45 px is one merge.
+    expect(clustersForDrag(8, 45, 24, 255)).toBe(9);
+    expect(CUT_RATES.map((r) => r.px)).toEqual([4, 10, 24]);
   });
 });
 

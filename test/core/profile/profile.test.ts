@@ -26,6 +26,22 @@ describe('profileRun', () => {
   });
 });
 
+describe('profileRun with an index that has no window', () => {
+  // A tree re-cut keeps cluster indices, so an index below the highest can be empty (as after a merge).
+  const data = Float64Array.from([0, 1, 0.1, 2, 0.2, 1, 0.3, 2, 5, 1, 5.1, 2, 5.2, 1, 5.3, 2]);
+  it('gives the live clusters the figures they have without the gap, and the empty one none', () => {
+    const compact = profileRun({ data, n: 8, d: 2, featureNames: ['a', 'b'], labels: Int32Array.from([0, 0, 0, 0, 1, 1, 1, 1]), k: 2 });
+    const gapped = profileRun({ data, n: 8, d: 2, featureNames: ['a', 'b'], labels: Int32Array.from([0, 0, 0, 0, 2, 2, 2, 2]), k: 3 });
+    expect(gapped.composition.clusters.map((c) => c.size)).toEqual([4, 0, 4]);
+    expect(Array.from(gapped.order)).toEqual(Array.from(compact.order));
+    expect(gapped.distinguishing[0].map((f) => f.name)).toEqual(compact.distinguishing[0].map((f) => f.name));
+    expect(gapped.distinguishing[2][0].cohensD).toBeCloseTo(compact.distinguishing[1][0].cohensD, 12);
+    expect(Array.from(gapped.standardizedMeans.subarray(0, 2))).toEqual(Array.from(compact.standardizedMeans.subarray(0, 2)));
+    expect(Array.from(gapped.standardizedMeans.subarray(4, 6))).toEqual(Array.from(compact.standardizedMeans.subarray(2, 4)));
+    expect(Array.from(gapped.standardizedMeans.subarray(2, 4)).every(Number.isNaN)).toBe(true);
+  });
+});
+
 describe('featureHistograms', () => {
   it('bins over the 1st–99th percentile and clamps values outside into the end bins', () => {
     const values = Float64Array.from({ length: 101 }, (_, i) => i);

@@ -25,3 +25,20 @@ export function heightForClusters(tree: MergeTree, k: number): number {
   const above = applied < m ? tree.height[applied] : tree.height[m - 1] * 1.05;
   return (below + above) / 2;
 }
+
+/** Drag rates of the cut line: pixels of drag per merge step (the Tree's "Drag" choice; the middle one is the default). */
+export const CUT_RATES: readonly { px: number; label: string }[] = [
+  { px: 4, label: 'fast' },
+  { px: 10, label: 'normal' },
+  { px: 24, label: 'fine' },
+];
+
+/**
+ * The cluster count a drag of the cut line reaches: the drag moves the cut by whole merges, one per
+ * `pxPerMerge` pixels whatever the merge heights (so the low, crowded merges of a tree do not
+ * rush by). `delta` > 0 is towards the leaves (more clusters). Kept within 2..max.
+ */
+export function clustersForDrag(startK: number, delta: number, pxPerMerge: number, max: number): number {
+  const steps = Math.trunc(delta / Math.max(1, pxPerMerge));
+  return Math.max(2, Math.min(max, startK + steps));
+}

@@ -58,3 +58,18 @@ export function niceStep(raw: number): number {
   const f = raw / p;
   return (f < 1.5 ? 1 : f < 3.5 ? 2 : f < 7.5 ? 5 : 10) * p;
 }
+
+/** "k = 12" at the end of the cut line (bold while the line is dragged), so the count is read where the hand is. */
+export function drawCutLabel(ctx: CanvasRenderingContext2D, layout: TreeLayout, cut: number, text: string, active: boolean): void {
+  const vertical = layout.orientation === 'vertical';
+  const [x, y] = toScreen(layout, vertical ? layout.box.width : 0, cut);
+  ctx.font = `${active ? 'bold ' : ''}12px system-ui, sans-serif`;
+  ctx.lineWidth = 3;
+  ctx.strokeStyle = 'rgb(255 255 255 / 0.95)';
+  ctx.fillStyle = '#b42318';
+  const w = ctx.measureText(text).width;
+  const tx = vertical ? x - w : x + 4, ty = vertical ? y - 16 : y + 2;
+  ctx.textBaseline = 'top';
+  ctx.strokeText(text, tx, ty);
+  ctx.fillText(text, tx, ty);
+}
