@@ -28,7 +28,7 @@ function listRows(page: Page): Promise<Row[]> {
     return {
       number: Number(li.querySelector('.n')!.textContent),
       name: input.value || input.placeholder,
-      size: Number(li.querySelector('.size')!.textContent),
+      size: Number(li.querySelector('.size')!.textContent!.replace(/,/g, '')), // thousands separators
     };
   }));
 }
