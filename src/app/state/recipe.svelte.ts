@@ -8,6 +8,20 @@ import type { Table } from '../../core/table/table';
 
 export { STEP_TYPES };
 
+/** Each step's title in the editor (its code name, used in recipe files, shows as the tooltip). */
+export const STEP_TITLES: Record<RecipeStepType, string> = {
+  'drop-missing': 'Drop mostly missing',
+  impute: 'Fill missing values',
+  zscore: 'Z-score',
+  'subject-zscore': 'Z-score per subject',
+  robust: 'Robust scaling',
+  minmax: 'Scale to 0–1',
+  log: 'Log transform',
+  'prune-constant': 'Drop constant features',
+  'prune-correlated': 'Drop correlated features',
+  clip: 'Clip to percentiles',
+};
+
 /** What each step does, in a few words for the editor. */
 export const STEP_HINTS: Record<RecipeStepType, string> = {
   'drop-missing': 'drop windows or features with too many missing values',
