@@ -23,6 +23,8 @@ import { windowTimes } from '../core/export/segments';
 import { attachSubjects, recipeOption, useSubjectColumn } from './recipe-options';
 import { keepRows } from '../core/recipe/keep-rows';
 import { analyzeParams } from './pipeline-options';
+import { missingNotices } from '../core/table/notices';
+import { checkRoleColumns, printNotices } from './table-options';
 
 export interface AnalyzeDeps {
   client: JobClient<Jobs>;
@@ -44,10 +46,13 @@ export async function analyzeCommand(opts: AnalyzeOptions, deps: AnalyzeDeps): P
   const outFiles = { windows: join(outDir, 'windows.csv'), summary: join(outDir, 'summary.json') };
   refuseToOverwriteInput(opts.input, outDir, Object.values(outFiles));
 
-  const input = await readInputStep(opts.input, deps);
+  const input = await readInputStep(opts.input, deps, opts.missing ? { missing: opts.missing } : undefined);
   const { fileName, sha256 } = input;
   let table = input.table;
-  let roles = inferRoles(table);
+  checkRoleColumns(table, opts.roles);
+  let roles = inferRoles(table, opts.roles);
+  const notices = missingNotices(table, roles);
+  printNotices(notices);
   for (const w of checkTable(table, roles)) process.stderr.write(`gleaner: warning: ${w.message}\n`);
   useSubjectColumn(table, roles, opts.subject);
   const recipe = recipeOption(opts);
@@ -78,6 +83,7 @@ export async function analyzeCommand(opts: AnalyzeOptions, deps: AnalyzeDeps): P
     subjects,
     compositions,
     labelAgreement: label ? labelAgreement(result.labels, label) : null,
+    notices,
     version: deps.version,
   });
   mkdirSync(outDir, { recursive: true });

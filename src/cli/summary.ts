@@ -3,6 +3,7 @@ import { CAUTIONS } from '../core/cautions';
 import type { ColumnComposition } from '../core/composition/compose-column';
 import type { LabelAgreement } from '../core/composition/label-agreement';
 import type { ClusterComposition, SubjectComposition } from '../core/export/cluster-composition';
+import type { Notice } from '../core/table/notices';
 import type { Roles } from '../core/table/roles.types';
 
 export interface SummaryInput {
@@ -18,6 +19,8 @@ export interface SummaryInput {
   compositions?: ColumnComposition[];
   /** Agreement with a partial label column, on its labelled windows only. */
   labelAgreement?: LabelAgreement | null;
+  /** Automatic decisions about the input, as printed on stderr. */
+  notices?: Notice[];
   version: string;
 }
 
@@ -57,6 +60,7 @@ export function buildSummary(s: SummaryInput): Record<string, unknown> {
     version: s.version,
     input: s.input,
     roles: s.roles.map((r) => ({ column: r.name, role: r.role, evidence: r.evidence })),
+    notices: s.notices ?? [],
     recipe: result.recipe,
     embed: result.embed,
     cluster: { ...result.cluster, seed: params.seed },
