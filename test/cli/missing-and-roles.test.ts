@@ -109,3 +109,42 @@ describe('parsing --na and --role', () => {
     expect(() => parseArgs(['analyze', 'x.csv', '--out', 'o', '--role', 'a=id', '--role', 'a=label'])).toThrow('--role: column "a" given two roles (id and label)');
   });
 });
+
+describe('gleaner analyze: identifier columns', () => {
+  const dir = tempDir('ids');
+  // Three groups of windows; UNIQUE_ID counts 1, 2, ... within each run of 15 and restarts, as a
+  // public activity-recognition set's does. Clustering on it would mix the counter into the map.
+  const lines = ['UNIQUE_ID,subject,f1,f2'];
+  const bare = ['subject,f1,f2'];
+  const random = seededRandom(99);
+  for (let i = 0; i < 90; i++) {
+    const g = Math.floor(i / 15) % 3;
+    const f = [g * 5 + random(), g * 5 + random()].map((x) => x.toFixed(4));
+    lines.push([(i % 15) + 1, `S${Math.floor(i / 30)}`, ...f].join(','));
+    bare.push([`S${Math.floor(i / 30)}`, ...f].join(','));
+  }
+  const withId = join(dir, 'with-id.csv');
+  const without = join(dir, 'without.csv');
+  writeFileSync(withId, `${lines.join('\n')}\n`);
+  writeFileSync(without, `${bare.join('\n')}\n`);
+  const clusters = (out: string) => readFileSync(join(out, 'windows.csv'), 'utf8').trimEnd().split('\n').map((l) => l.split(',').slice(-2).join(','));
+
+  it('leaves a non-unique numeric id out of the features, says so, and clusters as if it were not there', () => {
+    const a = runCli(['analyze', withId, '--k', '3', '--progress', 'none', '--out', join(dir, 'a')]);
+    const b = runCli(['analyze', without, '--k', '3', '--progress', 'none', '--out', join(dir, 'b')]);
+    expect(a.status).toBe(0);
+    expect(b.status).toBe(0);
+    expect(a.stderr).toBe('gleaner: note: with-id.csv, column "UNIQUE_ID" looks like an identifier (name "UNIQUE_ID", integers counting up by 1 in runs (5 restarts)) but holds 15 distinct values in 90 rows; not used as a feature\n');
+    const s = summaryOf(join(dir, 'a'));
+    expect(s.input.featureNames).toEqual(['f1', 'f2']);
+    expect(s.notices.map((n) => [n.kind, n.column, n.count])).toEqual([['id-like', 'UNIQUE_ID', 15]]);
+    expect(clusters(join(dir, 'a'))).toEqual(clusters(join(dir, 'b')));
+  });
+
+  it('--role UNIQUE_ID=feature puts it back, and then nothing is told', () => {
+    const r = runCli(['analyze', withId, '--k', '3', '--role', 'UNIQUE_ID=feature', '--progress', 'none', '--out', join(dir, 'c')]);
+    expect(r.status).toBe(0);
+    expect(r.stderr).toBe('');
+    expect(summaryOf(join(dir, 'c')).input.featureNames).toEqual(['UNIQUE_ID', 'f1', 'f2']);
+  });
+});
