@@ -24,6 +24,7 @@ import { attachSubjects, recipeOption, useSubjectColumn } from './recipe-options
 import { keepRows } from '../core/recipe/keep-rows';
 import { analyzeParams } from './pipeline-options';
 import { missingNotices } from '../core/table/notices';
+import { missingByFeature, recipeNotices } from '../core/recipe/notices';
 import { checkRoleColumns, printNotices } from './table-options';
 
 export interface AnalyzeDeps {
@@ -68,7 +69,11 @@ export async function analyzeCommand(opts: AnalyzeOptions, deps: AnalyzeDeps): P
   const { n, d, featureNames } = matrix;
   if (recipe) params.recipe = recipe;
   const analyzePayload: AnalyzeJob = { matrix, params };
+  const missing = missingByFeature(matrix); // before the matrix's buffer moves to the worker
   const result = await runJob(deps, analyzePayload, [matrix.data.buffer as ArrayBuffer], 'analysing');
+  const told = recipeNotices(fileName, missing, result.recipe);
+  printNotices(told);
+  notices.push(...told);
   // The recipe dropped windows: the outputs list the analysed windows only.
   if (result.windows) ({ table, roles } = keepRows(table, roles, result.windows));
 

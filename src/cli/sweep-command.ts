@@ -13,6 +13,7 @@ import { commandUsage, parseCommand, value, type CommandSpec } from './parse-com
 import { progressReporter, type ProgressMode } from './progress-bar';
 import { UsageError } from './usage-error';
 import { missingNotices } from '../core/table/notices';
+import { missingByFeature, recipeNotices } from '../core/recipe/notices';
 import type { RoleOverrides } from '../core/table/roles.types';
 import { checkRoleColumns, naOption, printNotices, roleOption, TABLE_FLAGS } from './table-options';
 
@@ -111,7 +112,8 @@ export async function runSweep(argv: readonly string[]): Promise<number> {
     printNotices([...notices, ...missingNotices(table, roles)]);
     const matrix = featureMatrix(table, roles);
     if (opts.kMax >= matrix.n) throw new OptionError('--k-max', opts.kMax, `below the number of windows (${matrix.n})`);
-    const { data } = baselineRecipe(matrix);
+    const { data, recipe } = baselineRecipe(matrix);
+    printNotices(recipeNotices(fileName, missingByFeature(matrix), recipe));
     const bar = progressReporter(process.stderr, opts.progress);
     const ctx: JobContext = {
       progress: (stage, f) => bar.update(`sweep: ${stage}`, f),

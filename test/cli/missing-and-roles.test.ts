@@ -44,13 +44,20 @@ describe('gleaner analyze: missing-value markers and --role', () => {
     expect(b.status).toBe(0);
     expect(readFileSync(join(dir, 'b', 'windows.csv'), 'utf8')).toBe(readFileSync(join(dir, 'a', 'windows.csv'), 'utf8'));
     // f1 misses rows 1, 10, ... (i % 9 === 1: 10 of 90), f3 rows 4, 19, ... (i % 15 === 4: 6 of 90).
+    // Then, after the run, the cells the default recipe filled in each feature.
     expect(b.stderr.trimEnd().split('\n')).toEqual([
       'gleaner: note: question.csv, column "f1": 10 of 90 cells read as missing: 10 "?"',
       'gleaner: note: question.csv, column "f3": 6 of 90 cells read as missing: 6 "?"',
+      'gleaner: note: question.csv, feature "f1": 10 missing cells filled with the feature mean (0 after scaling) by recipe step 2 (impute)',
+      'gleaner: note: question.csv, feature "f3": 6 missing cells filled with the feature mean (0 after scaling) by recipe step 2 (impute)',
     ]);
     expect(a.stderr).toContain('gleaner: note: empty.csv, column "f1": 10 of 90 cells read as missing: 10 empty');
     const s = summaryOf(join(dir, 'b'));
-    expect(s.notices.map((n) => [n.kind, n.column, n.count])).toEqual([['missing-cells', 'f1', 10], ['missing-cells', 'f3', 6]]);
+    expect(s.notices.map((n) => [n.kind, n.column, n.count])).toEqual([
+      ['missing-cells', 'f1', 10], ['missing-cells', 'f3', 6], ['cells-filled', 'f1', 10], ['cells-filled', 'f3', 6],
+    ]);
+    // The same figure summary.json records for the impute step.
+    expect((s.recipe as { effect: { filled?: number } }[])[1].effect.filled).toBe(16);
     expect(s.notices.map((n) => `gleaner: note: ${n.message}`)).toEqual(b.stderr.trimEnd().split('\n'));
   });
 

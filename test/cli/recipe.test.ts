@@ -41,7 +41,8 @@ describe('gleaner analyze with a recipe', () => {
     const { dir, input } = fixture();
     const out = join(dir, 'out');
     const r = runCli(['analyze', input, '--k', '2', '--scale', 'robust', '--impute', 'subject-median', '--progress', 'none', '--out', out]);
-    expect(r.stderr).toBe(NOTES);
+    expect(r.stderr).toBe(`${NOTES}gleaner: note: in.csv, feature "f2": 1 missing cell filled with the subject's median by recipe step 2 (impute)\n`
+      + 'gleaner: note: in.csv, feature "f3": 1 missing cell filled with the subject\'s median by recipe step 2 (impute)\n');
     expect(r.status).toBe(0);
     const s = summaryOf(out);
     expect(s.recipe.map((x) => x.step)).toEqual(['robust', 'impute']);

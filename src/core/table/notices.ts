@@ -9,9 +9,12 @@ export type NoticeKind =
   | 'duplicate-ids'
   | 'duplicate-names'
   | 'column-ignored'
+  | 'feature-constant'
   | 'feature-dropped'
   | 'cells-filled'
-  | 'rows-dropped';
+  | 'cells-made-missing'
+  | 'rows-dropped'
+  | 'windows-without-subject';
 
 /**
  * An automatic decision made about the input, told to the user (the CLI prints one line each on

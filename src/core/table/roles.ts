@@ -249,8 +249,16 @@ function inferOne(column: Column, nRows: number, taken: Set<Role>, notices: Noti
         if (column.kind === 'categorical' || p.distinct <= MAX_CODES) return say(named, byName);
         break;
       case 'ignore':
+        notices.push({ kind: 'column-ignored', column: column.name, message: `${fileName}, column "${column.name}": not used (its name says free text)` });
         return say('ignore', `${byName}, free text`);
     }
+  }
+  if (named === 'id' && column.kind === 'categorical' && repeated && p.distinct <= nRows / 2) {
+    // Mostly repeated values are no window id (checkTable refuses a mostly-unique one that repeats).
+    notices.push({
+      kind: 'duplicate-ids', column: column.name, count: p.distinct,
+      message: `${fileName}, column "${column.name}" is named like a window id but repeats its values (${grouped(p.distinct)} distinct in ${grouped(nRows)} rows); not used as the window id`,
+    });
   }
   if (column.kind === 'categorical') return inferText(column, p, present, unique, free, say);
   return inferNumber(column, p, unique, free, say);

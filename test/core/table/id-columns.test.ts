@@ -126,4 +126,15 @@ describe('identifier columns', () => {
     expect(featureMatrix(t, roles).featureNames).toEqual(['UNIQUE_ID', 'f1', 'f2']);
     expect(notices).toEqual([]);
   });
+
+  it('tells a column left out by its name, and a text column named like an id whose values mostly repeat', () => {
+    const lines = ['window_id,notes,f'];
+    for (let i = 0; i < 12; i++) lines.push(`w${i % 4},${i === 2 ? 'loose strap' : ''},${i / 7}`);
+    const { roles, notices } = inferRolesTold(parseCsv(enc(lines.join('\n')), 'n.csv'));
+    expect(roles.map((r) => r.role)).toEqual(['metadata', 'ignore', 'feature']);
+    expect(notices.map((n) => n.message)).toEqual([
+      'n.csv, column "window_id" is named like a window id but repeats its values (4 distinct in 12 rows); not used as the window id',
+      'n.csv, column "notes": not used (its name says free text)',
+    ]);
+  });
 });
