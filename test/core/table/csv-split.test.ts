@@ -114,6 +114,23 @@ describe('CSV read in two parts, joined', () => {
     }
   });
 
+  it('reads the rest with the first reader\'s missing-value markers, a list of one\'s own included', () => {
+    const lines = ['id,f'];
+    const counts = { gap: 0, '': 0 };
+    for (let i = 0; i < 40; i++) {
+      const cell = i % 5 === 0 ? 'gap' : i % 7 === 0 ? '' : String(i / 2);
+      if (cell === 'gap' || cell === '') counts[cell]++;
+      lines.push(`${i},${cell}`);
+    }
+    const bytes = enc(`${lines.join('\n')}\n`);
+    const options = { ...COMMA, missing: ['gap'] };
+    const whole = readWhole(bytes, options) as Table;
+    expect(whole.missing).toEqual([{ column: 'f', total: counts.gap + counts[''], byMarker: counts }]);
+    for (let cut = lineEndAfter(bytes, 0); cut > 0 && cut < bytes.length; cut = lineEndAfter(bytes, cut)) {
+      expect(readInTwo(bytes, cut, options, 16)).toEqual(whole);
+    }
+  });
+
   it('declines to join where numbers and text meet in a column, so the caller reads on', () => {
     // "7" comes before the first text, "07" after it: a single reader spells the first as
     // JavaScript prints the number and keeps the second as written; a reader of the rest alone
