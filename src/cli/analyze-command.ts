@@ -54,7 +54,7 @@ export async function analyzeCommand(opts: AnalyzeOptions, deps: AnalyzeDeps): P
   const inferred = inferRolesTold(table, opts.roles);
   let roles = inferred.roles;
   const notices = [...inferred.notices, ...missingNotices(table, roles)];
-  printNotices(notices);
+  printNotices(notices, 'summary.json notices');
   for (const w of checkTable(table, roles)) process.stderr.write(`gleaner: warning: ${w.message}\n`);
   useSubjectColumn(table, roles, opts.subject);
   const recipe = recipeOption(opts);
@@ -72,7 +72,7 @@ export async function analyzeCommand(opts: AnalyzeOptions, deps: AnalyzeDeps): P
   const missing = missingByFeature(matrix); // before the matrix's buffer moves to the worker
   const result = await runJob(deps, analyzePayload, [matrix.data.buffer as ArrayBuffer], 'analysing');
   const told = recipeNotices(fileName, missing, result.recipe);
-  printNotices(told);
+  printNotices(told, 'summary.json notices');
   notices.push(...told);
   // The recipe dropped windows: the outputs list the analysed windows only.
   if (result.windows) ({ table, roles } = keepRows(table, roles, result.windows));

@@ -64,7 +64,21 @@ export function checkRoleColumns(table: Table, overrides: RoleOverrides | undefi
   }
 }
 
-/** One line each on stderr. */
-export function printNotices(notices: readonly Notice[], out: { write(s: string): unknown } = process.stderr): void {
-  for (const n of notices) out.write(`gleaner: note: ${n.message}\n`);
+/** Lines printed of one kind of notice before the rest are counted in one line (a wide table has hundreds). */
+export const PRINTED_PER_KIND = 12;
+
+/**
+ * One line each on stderr; past PRINTED_PER_KIND of one kind, one line counts the rest and says
+ * where they are all listed (`listedIn`, for example "summary.json").
+ */
+export function printNotices(notices: readonly Notice[], listedIn?: string, out: { write(s: string): unknown } = process.stderr): void {
+  const seen = new Map<string, number>();
+  for (const n of notices) {
+    const k = (seen.get(n.kind) ?? 0) + 1;
+    seen.set(n.kind, k);
+    if (k <= PRINTED_PER_KIND) out.write(`gleaner: note: ${n.message}\n`);
+  }
+  for (const [kind, k] of seen) {
+    if (k > PRINTED_PER_KIND) out.write(`gleaner: note: ${k - PRINTED_PER_KIND} more notices of this kind (${kind})${listedIn ? `, all listed in ${listedIn}` : ''}\n`);
+  }
 }

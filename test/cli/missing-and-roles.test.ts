@@ -155,3 +155,41 @@ describe('gleaner analyze: identifier columns', () => {
     expect(summaryOf(join(dir, 'c')).input.featureNames).toEqual(['UNIQUE_ID', 'f1', 'f2']);
   });
 });
+
+describe('gleaner: notices of a wide table, and inspect', () => {
+  const dir = tempDir('wide');
+  // 30 features, each missing in a few windows at seeded places: 60 notices in all (read, filled).
+  const random = seededRandom(561);
+  const names = Array.from({ length: 30 }, (_, j) => `tBodyAcc_${j}`);
+  const lines = [['window_id', 'subject', ...names].join(',')];
+  const missing = new Array<number>(30).fill(0);
+  for (let i = 0; i < 60; i++) {
+    const cells = names.map((_, j) => {
+      if (random() < 0.08 || i === j) { missing[j]++; return '?'; }
+      return ((i % 3) + random()).toFixed(3);
+    });
+    lines.push([`w${i}`, `S${i % 4}`, ...cells].join(','));
+  }
+  const input = join(dir, 'wide.csv');
+  writeFileSync(input, `${lines.join('\n')}\n`);
+
+  it('prints at most 12 lines of one kind and counts the rest; summary.json lists every one', () => {
+    const r = runCli(['analyze', input, '--k', '3', '--progress', 'none', '--out', join(dir, 'o')]);
+    expect(r.status).toBe(0);
+    const err = r.stderr.trimEnd().split('\n');
+    expect(err.filter((l) => l.includes('cells read as missing'))).toHaveLength(12);
+    expect(err).toContain('gleaner: note: 18 more notices of this kind (missing-cells), all listed in summary.json notices');
+    expect(err).toContain('gleaner: note: 18 more notices of this kind (cells-filled), all listed in summary.json notices');
+    expect(err).toHaveLength(26);
+    const s = summaryOf(join(dir, 'o'));
+    expect(s.notices.filter((n) => n.kind === 'missing-cells').map((n) => n.count)).toEqual(missing);
+    expect(s.notices.filter((n) => n.kind === 'cells-filled').map((n) => n.count)).toEqual(missing);
+  });
+
+  it('inspect lists the same notices about the input in its JSON', () => {
+    const r = runCli(['inspect', input]);
+    expect(r.status).toBe(0);
+    const s = JSON.parse(r.stdout) as { notices: { kind: string; column: string; count: number }[] };
+    expect(s.notices.map((n) => [n.kind, n.column, n.count])).toEqual(names.map((f, j) => ['missing-cells', f, missing[j]]));
+  });
+});
