@@ -193,3 +193,25 @@ describe('gleaner: notices of a wide table, and inspect', () => {
     expect(s.notices.map((n) => [n.kind, n.column, n.count])).toEqual(names.map((f, j) => ['missing-cells', f, missing[j]]));
   });
 });
+
+describe('gleaner sweep: --na and --role', () => {
+  const dir = tempDir('sweep-na');
+  const input = join(dir, 'question.csv');
+  writeFileSync(input, study('?'));
+
+  it('reads the markers, tells them, and takes --role as analyze does', () => {
+    const r = runCli(['sweep', input, '--k-min', '2', '--k-max', '3', '--role', 'f3=ignore', '--json', '--progress', 'none']);
+    expect(r.status).toBe(0);
+    expect(JSON.parse(r.stdout)).toMatchObject({ windows: 90, features: 2 });
+    expect(r.stderr.trimEnd().split('\n')).toEqual([
+      'gleaner: note: question.csv, column "f1": 10 of 90 cells read as missing: 10 "?"',
+      'gleaner: note: question.csv, feature "f1": 10 missing cells filled with the feature mean (0 after scaling) by recipe step 2 (impute)',
+    ]);
+    const refused = runCli(['sweep', input, '--na', '', '--progress', 'none']);
+    expect(refused.status).toBe(1);
+    expect(refused.stderr).toMatch(/^gleaner: question\.csv, row 3, column "f1": expected a number/);
+    const unknown = runCli(['sweep', input, '--role', 'nope=id', '--progress', 'none']);
+    expect(unknown.status).toBe(2);
+    expect(unknown.stderr).toMatch(/^gleaner: --role: no column "nope" in question\.csv/);
+  });
+});

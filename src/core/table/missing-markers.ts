@@ -8,8 +8,12 @@ import { parseNumberBytes } from './number-bytes';
  */
 export const DEFAULT_MISSING_MARKERS: readonly string[] = ['', 'NA', 'N/A', 'NaN', 'nan', 'null', 'NULL', '?', '-'];
 
-/** How the empty cell is named in notices. */
-const EMPTY = 'empty';
+/** Whether a marker would be read as a number, with a decimal point or a decimal comma. */
+function readsAsNumber(m: string): boolean {
+  if (m === '') return false;
+  const b = new TextEncoder().encode(m);
+  return !Number.isNaN(parseNumberBytes(b, 0, b.length, 0x2e)) || !Number.isNaN(parseNumberBytes(b, 0, b.length, 0x2c));
+}
 
 /** A list of missing-value markers, ready for matching cells against it. */
 export class MissingMarkers {
@@ -31,22 +35,13 @@ export class MissingMarkers {
     this.list = list;
     this.index = new Map(list.map((m, i) => [m, i]));
     this.longest = Math.max(...list.map((m) => m.length));
-    const bytes = new TextEncoder();
-    this.numeric = list.some((m) => {
-      const b = bytes.encode(m);
-      return m !== '' && (parseNumberBytes(b, 0, b.length, 0x2e) === parseNumberBytes(b, 0, b.length, 0x2e) || parseNumberBytes(b, 0, b.length, 0x2c) === parseNumberBytes(b, 0, b.length, 0x2c));
-    });
+    this.numeric = list.some(readsAsNumber);
   }
 
   /** Index in `list` of a trimmed cell that is a marker, or -1. */
   indexOf(cell: string): number {
     if (cell.length > this.longest) return -1;
     return this.index.get(cell) ?? -1;
-  }
-
-  /** The marker a notice names: "empty" for the empty cell, else the marker in quotes. */
-  shown(i: number): string {
-    return i === 0 ? EMPTY : `"${this.list[i]}"`;
   }
 
   /** The first marker besides the empty cell, for messages ("write NA for a missing value"). */
