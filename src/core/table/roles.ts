@@ -183,6 +183,15 @@ const RUN_SHARE = 0.9;
 const NEAR_UNIQUE = 0.95;
 const DENSE_SPAN = 1.1;
 
+/** Words that name an identifier by themselves ("window" also begins feature names such as window_steps). */
+const ID_WORDS: ReadonlySet<string> = new Set(['id', 'uid', 'uuid', 'idx', 'index', 'row', 'rowid', 'rownum']);
+
+/** True when a column's name says "identifier": an id word, or the name is just "window" / "win". */
+function namedLikeId(name: string): boolean {
+  const words = nameWords(name);
+  return words.some((w) => ID_WORDS.has(w)) || (words.length === 1 && (words[0] === 'window' || words[0] === 'win'));
+}
+
 function isIntegerColumn(values: Float32Array | Float64Array): boolean {
   for (let r = 0; r < values.length; r++) {
     const v = values[r];
@@ -211,15 +220,16 @@ function inferOne(column: Column, nRows: number, taken: Set<Role>, notices: Noti
   // otherwise left out of the features, with a notice: clustering on a row counter is never meant.
   if (column.kind === 'numeric' && column.time === undefined && (named === undefined || named === 'id') && present > 1 && isIntegerColumn(column.values)) {
     const shape = identifierShape(column.values, p, present);
-    if (named === 'id' || shape !== null) {
-      const why = [named === 'id' ? `name "${column.name}"` : '', shape ?? ''].filter((w) => w !== '').join(', ');
-      if (unique && p.missing === 0 && free('id')) {
-        if (named !== 'id') {
+    const byName = named === 'id' && namedLikeId(column.name);
+    if (byName || shape !== null) {
+      const why = [byName ? `name "${column.name}"` : '', shape ?? ''].filter((w) => w !== '').join(', ');
+      if (unique && free('id')) {
+        if (!byName) {
           notices.push({ kind: 'window-id', column: column.name, message: `${fileName}, column "${column.name}": ${shape}, one per row: used as the window id` });
         }
         return say('id', why);
       }
-      const held = unique && p.missing === 0
+      const held = unique
         ? `is unique while "${idColumn() ?? ''}" is the window id`
         : `holds ${grouped(p.distinct)} distinct value${p.distinct === 1 ? '' : 's'} in ${grouped(nRows)} rows${p.missing > 0 ? ` (${grouped(p.missing)} missing)` : ''}`;
       const message = `${fileName}, column "${column.name}" looks like an identifier (${why}) but ${held}; not used as a feature`;

@@ -101,6 +101,15 @@ describe('identifier columns', () => {
     expect(notices[0].message).toBe('two.csv, column "row" looks like an identifier (name "row", a sequence of integers counting up by 1) but is unique while "window_id" is the window id; not used as a feature');
   });
 
+  it('leaves an integer feature whose name only begins with "window" alone', () => {
+    const random = seededRandom(12);
+    const lines = ['window_steps,f'];
+    for (let i = 0; i < 50; i++) lines.push(`${Math.floor(random() * 30)},${random().toFixed(3)}`);
+    const { roles, notices } = inferRolesTold(parseCsv(enc(lines.join('\n')), 'w.csv'));
+    expect(roles.map((r) => r.role)).toEqual(['feature', 'feature']);
+    expect(notices).toEqual([]);
+  });
+
   it('leaves measurements, subject codes and labels alone: integer counts, floats, codes in runs', () => {
     const random = seededRandom(11);
     const lines = ['subject_id,activity,steps,energy'];
