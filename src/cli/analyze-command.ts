@@ -10,7 +10,7 @@ import { runIdentities } from '../core/export/run-model';
 import { columnWithRole } from '../core/export/window-columns';
 import { featureMatrix } from '../core/table/matrix';
 import { checkTable } from '../core/table/checks';
-import { inferRoles } from '../core/table/roles';
+import { inferRolesTold } from '../core/table/roles';
 import { readInputStep } from './read-input';
 import type { JobClient, RunningJob } from '../worker/client';
 import type { AnalyzeJob, Jobs } from '../worker/jobs';
@@ -25,6 +25,9 @@ import { attachSubjects, recipeOption, useSubjectColumn } from './recipe-options
 import { keepRows } from '../core/recipe/keep-rows';
 import { analyzeParams } from './pipeline-options';
 import { runStability } from './stability-option';
+import { missingNotices } from '../core/table/notices';
+import { missingByFeature, recipeNotices } from '../core/recipe/notices';
+import { checkRoleColumns, printNotices } from './table-options';
 
 export interface AnalyzeDeps {
   client: JobClient<Jobs>;
@@ -46,10 +49,14 @@ export async function analyzeCommand(opts: AnalyzeOptions, deps: AnalyzeDeps): P
   const outFiles = { windows: join(outDir, 'windows.csv'), summary: join(outDir, 'summary.json') };
   refuseToOverwriteInput(opts.input, outDir, Object.values(outFiles));
 
-  const input = await readInputStep(opts.input, deps);
+  const input = await readInputStep(opts.input, deps, opts.missing ? { missing: opts.missing } : undefined);
   const { fileName, sha256 } = input;
   let table = input.table;
-  let roles = inferRoles(table);
+  checkRoleColumns(table, opts.roles);
+  const inferred = inferRolesTold(table, opts.roles);
+  let roles = inferred.roles;
+  const notices = [...inferred.notices, ...missingNotices(table, roles)];
+  printNotices(notices, 'summary.json notices');
   for (const w of checkTable(table, roles)) process.stderr.write(`gleaner: warning: ${w.message}\n`);
   useSubjectColumn(table, roles, opts.subject);
   const recipe = recipeOption(opts);
@@ -67,9 +74,13 @@ export async function analyzeCommand(opts: AnalyzeOptions, deps: AnalyzeDeps): P
   const { n, d, featureNames } = matrix;
   if (recipe) params.recipe = recipe;
   const analyzePayload: AnalyzeJob = { matrix, params };
+  const missing = missingByFeature(matrix); // before the matrix's buffer moves to the worker
   const result = await runJob(deps, analyzePayload, [matrix.data.buffer as ArrayBuffer], 'analysing');
   const stability = opts.stability === undefined ? undefined
     : await runStability(deps, { table, roles, params, run: { labels: result.labels, windows: result.windows, cluster: result.cluster }, options: { resamples: opts.stability } });
+  const told = recipeNotices(fileName, missing, result.recipe);
+  printNotices(told, 'summary.json notices');
+  notices.push(...told);
   // The recipe dropped windows: the outputs list the analysed windows only.
   if (result.windows) ({ table, roles } = keepRows(table, roles, result.windows));
 
@@ -88,6 +99,7 @@ export async function analyzeCommand(opts: AnalyzeOptions, deps: AnalyzeDeps): P
     compositions,
     labelAgreement: label ? labelAgreement(result.labels, label) : null,
     ...(stability ? { stability } : {}),
+    notices,
     version: deps.version,
   });
   mkdirSync(outDir, { recursive: true });

@@ -2,6 +2,8 @@ import { INPUT_PARAMS, PARAMS, STABILITY_PARAMS, type ImputeChoice, type RunValu
 import { OUT, PROGRESS } from './cli-flags';
 import { commandUsage, parseCommand, value, type CommandSpec } from './parse-command';
 import { pipelineValues } from './pipeline-options';
+import { naOption, roleOption, TABLE_FLAGS } from './table-options';
+import type { RoleOverrides } from '../core/table/roles.types';
 import type { ProgressMode } from './progress-bar';
 import { UsageError } from './usage-error';
 
@@ -30,6 +32,10 @@ export interface AnalyzeOptions {
   events?: boolean;
   /** Resamples of the stability assessment across subjects (--stability). */
   stability?: number;
+  /** Cells read as missing (--na); the default list when absent. */
+  missing?: string[];
+  /** Column roles set on the command line (--role column=role). */
+  roles?: RoleOverrides;
 }
 
 export type Command =
@@ -45,10 +51,13 @@ export const ANALYZE: CommandSpec = {
   name: 'analyze',
   named: false,
   flags: [
-    OUT, P.k, P.seed, P.restarts, I.compose, PROGRESS, I.scale, I.impute, I.subject, I.recipe, I.events,
-    P.embed, P.perplexity, P.iterations, P.neighbors, P.minDist, P.metric, P.sampleAbove, P.cluster, P.cutHeight, P.minClusterSize, P.minSamples, P.space,
-    STABILITY_PARAMS.stability,
-  ].map((spec) => ({ spec })),
+    ...[OUT, P.k, P.seed, P.restarts, I.compose, PROGRESS, I.scale, I.impute, I.subject].map((spec) => ({ spec })),
+    ...TABLE_FLAGS,
+    ...[I.recipe, I.events,
+      P.embed, P.perplexity, P.iterations, P.neighbors, P.minDist, P.metric, P.sampleAbove, P.cluster, P.cutHeight, P.minClusterSize, P.minSamples, P.space,
+      STABILITY_PARAMS.stability,
+    ].map((spec) => ({ spec })),
+  ],
 };
 
 export const USAGE = `Usage: gleaner analyze <windows.csv> --out <dir> [options]
@@ -97,5 +106,9 @@ export function parseArgs(argv: readonly string[]): Command {
   if (texts.has(I.subject.flag)) opts.subject = texts.get(I.subject.flag);
   if (texts.has(I.events.flag)) opts.events = true;
   if (texts.has(STABILITY_PARAMS.stability.flag)) opts.stability = value(parsed, STABILITY_PARAMS.stability);
+  const missing = naOption(parsed);
+  if (missing) opts.missing = missing;
+  const roles = roleOption(parsed);
+  if (roles) opts.roles = roles;
   return { command: 'analyze', ...opts, values: { ...pipelineValues(parsed), k, seed, restarts } };
 }

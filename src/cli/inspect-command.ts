@@ -7,7 +7,8 @@ import { openEdf, type EdfFile } from '../core/raw/edf/read';
 import { looksLikeEdf } from '../core/raw/open';
 import type { ByteSource } from '../core/raw/byte-source';
 import { detectFormat } from '../core/table/format';
-import { inferRoles, roleFromName } from '../core/table/roles';
+import { inferRolesTold, roleFromName } from '../core/table/roles';
+import { missingNotices } from '../core/table/notices';
 import type { Table } from '../core/table/table';
 import { openFileSource } from './file-source';
 import { parseCommand, type CommandSpec } from './parse-command';
@@ -128,7 +129,7 @@ async function rawCsvSummary(source: ByteSource, fileName: string): Promise<obje
 
 async function windowsSummary(path: string, fileName: string): Promise<object> {
   const { table } = await readInput(path, { progress: () => {}, cancelled: () => false });
-  const roles = inferRoles(table);
+  const { roles, notices } = inferRolesTold(table);
   const byRole = (role: string) => roles.findIndex((r) => r.role === role);
   const distinct = (role: string) => {
     const j = byRole(role);
@@ -152,6 +153,7 @@ async function windowsSummary(path: string, fileName: string): Promise<object> {
     start: range('start'),
     end: range('end'),
     columns: roles.map((r, j) => ({ name: r.name, role: r.role, type: table.columns[j].kind, evidence: r.evidence })),
+    notices: [...notices, ...missingNotices(table, roles)],
   };
 }
 

@@ -6,6 +6,10 @@ import { UsageError } from './usage-error';
 export interface CommandFlag {
   spec: ParamSpec;
   help?: readonly string[];
+  /** May be given several times (each value is kept, in order, in `ParsedCommand.lists`). */
+  repeatable?: boolean;
+  /** Its value may be empty (`--na ''`). */
+  emptyValue?: boolean;
 }
 
 export interface CommandSpec {
@@ -17,8 +21,10 @@ export interface CommandSpec {
 }
 
 export interface ParsedCommand {
-  /** Flag texts by flag name (booleans as 'true'), before any typing. */
+  /** Flag texts by flag name (booleans as 'true'), before any typing; of a repeatable flag, the last. */
   texts: Map<string, string>;
+  /** Every text of each repeatable flag given, in order. */
+  lists: Map<string, string[]>;
   positionals: string[];
 }
 
@@ -29,9 +35,11 @@ export interface ParsedCommand {
  */
 export function parseCommand(argv: readonly string[], command: CommandSpec): ParsedCommand {
   const byFlag = new Map(command.flags.map((f) => [f.spec.flag, f.spec]));
+  const flagOf = new Map(command.flags.map((f) => [f.spec.flag, f]));
   const options = Object.fromEntries(command.flags.map((f) => [f.spec.flag, { type: f.spec.kind === 'boolean' ? ('boolean' as const) : ('string' as const) }]));
   const { tokens } = parseArgs({ args: [...argv], options, strict: false, allowPositionals: true, tokens: true });
   const texts = new Map<string, string>();
+  const lists = new Map<string, string[]>();
   const positionals: string[] = [];
   const suffix = command.named ? ` for ${command.name}` : '';
   for (const t of tokens) {
@@ -40,14 +48,16 @@ export function parseCommand(argv: readonly string[], command: CommandSpec): Par
     const spec = byFlag.get(t.name);
     const boolean = spec?.kind === 'boolean';
     if (!spec || !t.rawName.startsWith('--') || (boolean && t.inlineValue)) throw new UsageError(`unknown option "${t.rawName}"${suffix}`);
-    if (texts.has(spec.flag)) throw new UsageError(`option --${spec.flag} given twice`);
+    const flag = flagOf.get(spec.flag);
+    if (texts.has(spec.flag) && !flag?.repeatable) throw new UsageError(`option --${spec.flag} given twice`);
     if (boolean) { texts.set(spec.flag, 'true'); continue; }
     // A value that is itself a flag ("--k --out x") means the value is missing, as does "--k=".
     const value = t.value === undefined || (!t.inlineValue && t.value.startsWith('--')) ? undefined : t.value;
-    if (value === undefined || value === '') throw new UsageError(`option --${spec.flag} needs a value`);
+    if (value === undefined || (value === '' && !flag?.emptyValue)) throw new UsageError(`option --${spec.flag} needs a value`);
     texts.set(spec.flag, value);
+    if (flag?.repeatable) lists.set(spec.flag, [...(lists.get(spec.flag) ?? []), value]);
   }
-  return { texts, positionals };
+  return { texts, lists, positionals };
 }
 
 /** The typed value of a flag (checked against the schema), or `fallback` when it was not given. */

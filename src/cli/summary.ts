@@ -5,6 +5,7 @@ import type { LabelAgreement } from '../core/composition/label-agreement';
 import type { ClusterComposition, SubjectComposition } from '../core/export/cluster-composition';
 import { exportedClusterRecord, identityRecord, type ClusterIdentity } from '../core/export/run-model';
 import type { StabilityResult } from '../core/stability/stability';
+import type { Notice } from '../core/table/notices';
 import type { Roles } from '../core/table/roles.types';
 import { stabilityFields, stabilityRule } from './stability-option';
 
@@ -25,6 +26,8 @@ export interface SummaryInput {
   labelAgreement?: LabelAgreement | null;
   /** Stability across subjects (--stability), when asked for. */
   stability?: StabilityResult;
+  /** Automatic decisions about the input, as printed on stderr. */
+  notices?: Notice[];
   version: string;
 }
 
@@ -64,6 +67,7 @@ export function buildSummary(s: SummaryInput): Record<string, unknown> {
     version: s.version,
     input: s.input,
     roles: s.roles.map((r) => ({ column: r.name, role: r.role, evidence: r.evidence })),
+    notices: s.notices ?? [],
     recipe: result.recipe,
     embed: result.embed,
     cluster: { ...exportedClusterRecord(result.cluster), seed: params.seed },

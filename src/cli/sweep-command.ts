@@ -6,12 +6,16 @@ import type { JobContext } from '../core/job';
 import { baselineRecipe } from '../core/recipe/baseline';
 import { parseCsv } from '../core/table/csv';
 import { featureMatrix } from '../core/table/matrix';
-import { inferRoles } from '../core/table/roles';
+import { inferRolesTold } from '../core/table/roles';
 import { PARAMS, type ParamSpec } from '../core/params';
 import { JSON_FLAG, PROGRESS, PROGRESS_SHORT } from './cli-flags';
 import { commandUsage, parseCommand, value, type CommandSpec } from './parse-command';
 import { progressReporter, type ProgressMode } from './progress-bar';
 import { UsageError } from './usage-error';
+import { missingNotices } from '../core/table/notices';
+import { missingByFeature, recipeNotices } from '../core/recipe/notices';
+import type { RoleOverrides } from '../core/table/roles.types';
+import { checkRoleColumns, naOption, printNotices, roleOption, TABLE_FLAGS } from './table-options';
 
 /** The range of k a sweep covers (common practice for a first look: 2 to 12 clusters). */
 export const K_MIN: ParamSpec<number> = {
@@ -30,7 +34,7 @@ export const SWEEP: CommandSpec = {
     { spec: K_MIN }, { spec: K_MAX },
     { spec: PARAMS.seed, help: ['seed for every random step (default {default})'] },
     { spec: PARAMS.restarts, help: ['k-means restarts per k, best inertia kept (default {default})'] },
-    { spec: PARAMS.silhouetteSample }, { spec: JSON_FLAG }, { spec: PROGRESS, help: PROGRESS_SHORT },
+    { spec: PARAMS.silhouetteSample }, { spec: JSON_FLAG }, { spec: PROGRESS, help: PROGRESS_SHORT }, ...TABLE_FLAGS,
   ],
 };
 
@@ -55,6 +59,10 @@ export interface SweepCommandOptions {
   silhouetteSample: number;
   json: boolean;
   progress: ProgressMode;
+  /** Cells read as missing (--na); the default list when absent. */
+  missing?: string[];
+  /** Column roles set on the command line (--role column=role). */
+  roles?: RoleOverrides;
 }
 
 /** Parses the arguments after `gleaner sweep`; throws UsageError or OptionError. `null` means --help. */
@@ -72,6 +80,8 @@ export function parseSweepArgs(argv: readonly string[]): SweepCommandOptions | n
     seed: value(parsed, PARAMS.seed),
     restarts: value(parsed, PARAMS.restarts),
     silhouetteSample: value(parsed, PARAMS.silhouetteSample),
+    ...(parsed.texts.has('na') ? { missing: naOption(parsed) } : {}),
+    ...(parsed.lists.has('role') ? { roles: roleOption(parsed) } : {}),
   };
 }
 
@@ -96,10 +106,14 @@ export async function runSweep(argv: readonly string[]): Promise<number> {
     if (!opts) { process.stdout.write(`${SWEEP_USAGE}\n`); return 0; }
     process.on('SIGINT', onSigint);
     const fileName = basename(opts.input);
-    const table = parseCsv(new Uint8Array(readFileSync(opts.input)), fileName);
-    const matrix = featureMatrix(table, inferRoles(table));
+    const table = parseCsv(new Uint8Array(readFileSync(opts.input)), fileName, opts.missing ? { missing: opts.missing } : {});
+    checkRoleColumns(table, opts.roles);
+    const { roles, notices } = inferRolesTold(table, opts.roles);
+    printNotices([...notices, ...missingNotices(table, roles)]);
+    const matrix = featureMatrix(table, roles);
     if (opts.kMax >= matrix.n) throw new OptionError('--k-max', opts.kMax, `below the number of windows (${matrix.n})`);
-    const { data } = baselineRecipe(matrix);
+    const { data, recipe } = baselineRecipe(matrix);
+    printNotices(recipeNotices(fileName, missingByFeature(matrix), recipe));
     const bar = progressReporter(process.stderr, opts.progress);
     const ctx: JobContext = {
       progress: (stage, f, detail) => bar.update(`sweep: ${stage}`, f, detail),

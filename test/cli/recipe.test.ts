@@ -8,6 +8,15 @@ const CSV = ['window_id,subject,start,f1,f2,f3',
   'w1,A,0,1,10,5', 'w2,A,5,2,,6', 'w3,A,10,3,12,7', 'w4,B,0,10,30,1',
   'w5,B,5,11,31,', 'w6,B,10,12,33,3', 'w7,C,0,5,20,4', 'w8,C,5,6,21,4'].join('\n');
 
+/** The notes the CLI prints before anything else: the fixture's two empty feature cells. */
+const NOTES = 'gleaner: note: in.csv, column "f2": 1 of 8 cells read as missing: 1 empty\n'
+  + 'gleaner: note: in.csv, column "f3": 1 of 8 cells read as missing: 1 empty\n';
+/** stderr without those notes. */
+const afterNotes = (stderr: string) => {
+  expect(stderr.startsWith(NOTES)).toBe(true);
+  return stderr.slice(NOTES.length);
+};
+
 function fixture(): { dir: string; input: string } {
   const dir = tempDir('recipe');
   const input = join(dir, 'in.csv');
@@ -32,7 +41,8 @@ describe('gleaner analyze with a recipe', () => {
     const { dir, input } = fixture();
     const out = join(dir, 'out');
     const r = runCli(['analyze', input, '--k', '2', '--scale', 'robust', '--impute', 'subject-median', '--progress', 'none', '--out', out]);
-    expect(r.stderr).toBe('');
+    expect(r.stderr).toBe(`${NOTES}gleaner: note: in.csv, feature "f2": 1 missing cell filled with the subject's median by recipe step 2 (impute)\n`
+      + 'gleaner: note: in.csv, feature "f3": 1 missing cell filled with the subject\'s median by recipe step 2 (impute)\n');
     expect(r.status).toBe(0);
     const s = summaryOf(out);
     expect(s.recipe.map((x) => x.step)).toEqual(['robust', 'impute']);
@@ -63,8 +73,9 @@ describe('gleaner analyze with a recipe', () => {
     writeFileSync(bad, JSON.stringify({ version: 1, steps: [{ type: 'zscore' }, { type: 'clip', lower: 120 }] }));
     const r = runCli(['analyze', input, '--k', '2', '--recipe', bad, '--out', join(dir, 'o2')]);
     expect(r.status).toBe(2);
-    expect(r.stderr).toMatch(/^gleaner: bad\.json: invalid recipe step 2 \(clip\) lower: 120/);
-    expect(r.stderr.trimEnd().split('\n')).toHaveLength(1);
+    const err = afterNotes(r.stderr);
+    expect(err).toMatch(/^gleaner: bad\.json: invalid recipe step 2 \(clip\) lower: 120/);
+    expect(err.trimEnd().split('\n')).toHaveLength(1);
     expect(hasStackTrace(r.stderr)).toBe(false);
   });
 
@@ -72,7 +83,7 @@ describe('gleaner analyze with a recipe', () => {
     const { dir, input } = fixture();
     const r = runCli(['analyze', input, '--k', '2', '--subject', 'who', '--out', join(dir, 'o')]);
     expect(r.status).toBe(1);
-    expect(r.stderr).toMatch(/^gleaner: in\.csv, column "who": expected a column of this name for --subject/);
+    expect(afterNotes(r.stderr)).toMatch(/^gleaner: in\.csv, column "who": expected a column of this name for --subject/);
     const out = join(dir, 'o3');
     expect(runCli(['analyze', input, '--k', '2', '--subject', 'subject', '--scale', 'subject-zscore', '--progress', 'none', '--out', out]).status).toBe(0);
     expect(summaryOf(out).recipe[0]).toMatchObject({ step: 'subject-zscore', effect: { groups: 3 } });

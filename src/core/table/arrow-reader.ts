@@ -25,6 +25,12 @@ export class ArrowReader extends WholeFileReader {
     const nRows = arrow.numRows;
     if (arrow.schema.fields.length === 0) throw new InputError({ file: this.fileName, expected: 'at least one column', found: 'an Arrow file without columns' });
     if (nRows === 0) throw new InputError({ file: this.fileName, row: 2, expected: 'at least one data row', found: 'an Arrow file with no rows' });
+    const names = arrow.schema.fields.map((f) => f.name);
+    const twice = names.findIndex((n, i) => names.indexOf(n) !== i);
+    if (twice >= 0) {
+      // As for a text table's header: two columns of one name would be told apart by position only.
+      throw new InputError({ file: this.fileName, column: names[twice], expected: 'unique column names', found: `"${names[twice]}" in columns ${names.indexOf(names[twice]) + 1} and ${twice + 1}` });
+    }
     const { precision, totalBytes } = this.opts;
     const narrow = precision === 'float32' || (precision === 'auto' && Math.max(totalBytes, size) > AUTO_FLOAT32_BYTES);
     const columns = [];

@@ -26,7 +26,9 @@ function show(c: Column, k: number | string): string {
 export function checkTable(table: Table, roles: Roles): TableWarning[] {
   const byName = new Map(table.columns.map((c) => [c.name, c]));
   const idRole = roles.find((r) => r.role === 'id');
-  const idColumn = idRole ? byName.get(idRole.name) : table.columns.find((c) => roleFromName(c.name) === 'id' && roles.find((r) => r.name === c.name)?.role !== 'ignore');
+  // A column the user set to "ignore" is not held to uniqueness; one left out as identifier-like is.
+  const userIgnored = (name: string) => roles.some((r) => r.name === name && r.role === 'ignore' && r.evidence === 'set by you');
+  const idColumn = idRole ? byName.get(idRole.name) : table.columns.find((c) => roleFromName(c.name) === 'id' && !userIgnored(c.name));
   if (idColumn) checkUniqueIds(table, idColumn, idRole !== undefined);
 
   const warnings: TableWarning[] = [];

@@ -1,16 +1,9 @@
 import { InputError } from '../errors';
 import { BLOCK, joinSegments, type Segment } from './blocks';
 import { parseNumberBytes } from './number-bytes';
+import { MissingMarkers, type MissingCount } from './missing-markers';
 import type { Column } from './table';
 import { parseIsoSeconds } from './timestamps';
-
-/** Cells that mean "no value" (case-insensitive), besides the empty cell. */
-export const MISSING_TOKENS: readonly string[] = ['na', 'nan', 'null'];
-
-/** Missing-value test on an already trimmed cell. */
-export function isMissingToken(s: string): boolean {
-  return s === '' || (s.length <= 4 && MISSING_TOKENS.includes(s.toLowerCase()));
-}
 
 const INFINITE = /^[+-]?inf(?:inity)?$/i;
 const utf8 = new TextDecoder('utf-8', { fatal: true });
@@ -53,6 +46,8 @@ export interface CsvColumnState {
   allIso: boolean;
   firstText: { line: number; text: string } | null;
   firstInfinite: { line: number; text: string } | null;
+  /** Missing cells by marker, in the order of MissingMarkers.list. */
+  markerCounts: number[];
 }
 
 /**
@@ -76,10 +71,13 @@ export class CsvColumn {
   private allIso = true;
   private firstText: { line: number; text: string } | null = null;
   private firstInfinite: { line: number; text: string } | null = null;
+  private readonly markerCounts: number[];
   /** Rows appended by absorb, kept in the other reader's blocks until finish joins them. */
   private tail: { head: number; n: number; num: (Float32Array | Float64Array)[]; codes: Int32Array[] | null; iso: Float64Array[] | null } | null = null;
 
-  constructor(readonly name: string, readonly wide: boolean, private readonly point: number) {}
+  constructor(readonly name: string, readonly wide: boolean, private readonly point: number, private readonly markers: MissingMarkers = new MissingMarkers()) {
+    this.markerCounts = markers.list.map(() => 0);
+  }
 
   /** Storage for the next BLOCK rows; returns the block numbers go to. */
   grow(): Float32Array | Float64Array {
@@ -90,9 +88,12 @@ export class CsvColumn {
     return block;
   }
 
-  /** True while a number cell is fully kept by writing its value to the block (no text seen yet). */
+  /**
+   * True while a number cell is fully kept by writing its value to the block: no text seen yet,
+   * and no missing-value marker that reads as a number (then every cell is matched first).
+   */
   get takesNumbers(): boolean {
-    return this.codes === null;
+    return this.codes === null && !this.markers.numeric;
   }
 
   /** Sets row r (storage grown) from cell bytes[s, e); `text` is the unescaped cell when it had doubled quotes. */
@@ -104,7 +105,7 @@ export class CsvColumn {
       while (e > s && (b[e - 1] === 0x20 || b[e - 1] === 0x09)) e--;
     }
     const v = text === undefined && e > s ? parseNumberBytes(b, s, e, this.point) : NaN;
-    if (v === v) {
+    if (v === v && !(this.markers.numeric && this.markers.indexOf(this.cellString(b, s, e, text, line, fileName)) >= 0)) {
       block[k] = v;
       if (this.codes) this.setCode(r, this.cellString(b, s, e, text, line, fileName));
       if (this.iso) this.allIso = false;
@@ -113,8 +114,10 @@ export class CsvColumn {
     block[k] = NaN;
     const str = text ?? (e > s ? this.cellString(b, s, e, undefined, line, fileName) : '');
     const t = quoted ? str.trim() : str;
-    if (isMissingToken(t)) {
+    const marker = this.markers.indexOf(t);
+    if (marker >= 0) {
       this.missing++;
+      this.markerCounts[marker]++;
       if (this.codes) this.codes[r >> 16][k] = -1;
       if (this.iso) this.iso[r >> 16][k] = NaN;
       return;
@@ -183,6 +186,7 @@ export class CsvColumn {
     return {
       n, missing: this.missing, textCount: this.textCount, num: this.num, codes: this.codes,
       dictionary: this.dictionary, iso: this.iso, allIso: this.allIso, firstText: this.firstText, firstInfinite: this.firstInfinite,
+      markerCounts: this.markerCounts,
     };
   }
 
@@ -226,6 +230,15 @@ export class CsvColumn {
     this.firstInfinite ??= shift(next.firstInfinite);
     this.missing += next.missing;
     this.textCount += next.textCount;
+    next.markerCounts.forEach((c, i) => { this.markerCounts[i] += c; });
+  }
+
+  /** The column's missing cells by marker; null when it has none. */
+  missingCount(): MissingCount | null {
+    if (this.missing === 0) return null;
+    const byMarker: Record<string, number> = {};
+    this.markerCounts.forEach((c, i) => { if (c > 0) byMarker[this.markers.list[i]] = c; });
+    return { column: this.name, total: this.missing, byMarker };
   }
 
   /** This column's own blocks then the absorbed ones (a missing part: n copies of fill). */
@@ -249,7 +262,7 @@ export class CsvColumn {
       throw new InputError({
         file: fileName, row: bad.line, column: this.name,
         expected: this.firstText
-          ? 'a number (leave the cell empty or write NA for a missing value)'
+          ? `a number (leave the cell empty${this.markers.example === undefined ? '' : ` or write ${this.markers.example}`} for a missing value)`
           : 'a finite number (Inf is not allowed; leave the cell empty for a missing value)',
         found: bad.text,
       });

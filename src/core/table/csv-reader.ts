@@ -1,6 +1,7 @@
 import { InputError } from '../errors';
 import { BLOCK, joinBlocks, joinSegments } from './blocks';
 import { bytesText, CsvColumn, type CsvColumnState } from './csv-column';
+import { MissingMarkers } from './missing-markers';
 import { sniffDecimal, sniffDelimiter, type Delimiter } from './csv-sniff';
 import { AUTO_FLOAT32_BYTES, DEFAULT_READ_OPTIONS, type ReadOptions, type TableReader } from './reader.types';
 import { roleFromName } from './roles';
@@ -28,6 +29,8 @@ export interface CsvLayout {
   names: string[];
   /** Per column: kept in double precision. */
   wide: boolean[];
+  /** Missing-value markers (MissingMarkers.list). */
+  missing: string[];
 }
 
 /** The rows a reader took from one part of a file, not yet finished into a table. */
@@ -49,6 +52,7 @@ export interface CsvPartState {
 export class CsvReader implements TableReader {
   bytesConsumed = 0;
   private readonly opts: Required<ReadOptions>;
+  private readonly markers: MissingMarkers;
   private pending: Uint8Array = new Uint8Array(0);
   private sniffed = false;
   private atStart = true;
@@ -80,6 +84,7 @@ export class CsvReader implements TableReader {
 
   constructor(private readonly fileName: string, options: ReadOptions = {}) {
     this.opts = { ...DEFAULT_READ_OPTIONS, ...options };
+    this.markers = new MissingMarkers(this.opts.missing);
     const { delimiter, decimal } = this.opts;
     if (delimiter !== 'auto' && decimal !== 'auto') {
       // Nothing to guess: parse from the first chunk.
@@ -95,17 +100,17 @@ export class CsvReader implements TableReader {
    * parsed: same dialect and columns, no header, lines counted from 1 at its first byte.
    */
   static continuing(fileName: string, layout: CsvLayout): CsvReader {
-    const r = new CsvReader(fileName, { delimiter: layout.delimiter, decimal: layout.point === 0x2c ? ',' : '.' });
+    const r = new CsvReader(fileName, { delimiter: layout.delimiter, decimal: layout.point === 0x2c ? ',' : '.', missing: layout.missing });
     r.atStart = false;
     r.header = layout.names.slice();
-    r.setColumns(layout.names.map((name, j) => new CsvColumn(name, layout.wide[j], layout.point)));
+    r.setColumns(layout.names.map((name, j) => new CsvColumn(name, layout.wide[j], layout.point, r.markers)));
     return r;
   }
 
   /** The dialect and columns, once the header has been read. */
   layout(): CsvLayout | null {
     if (this.header === null) return null;
-    return { delimiter: this.delim, point: this.point, names: this.header.slice(), wide: this.columns.map((c) => c.wide) };
+    return { delimiter: this.delim, point: this.point, names: this.header.slice(), wide: this.columns.map((c) => c.wide), missing: this.markers.list.slice() };
   }
 
   /** True once a cell opened with a quote: only then can a line end inside a record. */
@@ -210,7 +215,8 @@ export class CsvReader implements TableReader {
     const lines = t
       ? joinSegments([{ blocks: this.lineBlocks, n: t.head }, { blocks: t.blocks, n: t.n }], (m) => new Int32Array(m))
       : joinBlocks(this.lineBlocks, this.nRows, (m) => new Int32Array(m));
-    return { fileName: file, nRows: this.nRows, columns, lines };
+    const missing = this.columns.flatMap((c) => c.missingCount() ?? []);
+    return { fileName: file, nRows: this.nRows, columns, lines, ...(missing.length > 0 ? { missing } : {}) };
   }
 
   private sniff(buf: Uint8Array, complete: boolean): void {
@@ -545,7 +551,7 @@ export class CsvReader implements TableReader {
     this.header = names;
     this.setColumns(names.map((name) => {
       const role = roleFromName(name);
-      return new CsvColumn(name, !narrow || (role !== undefined && WIDE_ROLES.has(role)), this.point);
+      return new CsvColumn(name, !narrow || (role !== undefined && WIDE_ROLES.has(role)), this.point, this.markers);
     }));
   }
 

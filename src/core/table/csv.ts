@@ -3,7 +3,7 @@ import type { ReadOptions } from './reader.types';
 import type { Table } from './table';
 import { annotateTimes } from './time-columns';
 
-export { isMissingToken, MISSING_TOKENS } from './csv-column';
+export { DEFAULT_MISSING_MARKERS, MissingMarkers, type MissingCount } from './missing-markers';
 
 /**
  * Parses a whole delimited windows table held in memory (UTF-8, optional BOM, comma, semicolon or

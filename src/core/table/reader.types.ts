@@ -1,4 +1,5 @@
 import type { JobContext } from '../job';
+import { DEFAULT_MISSING_MARKERS } from './missing-markers';
 import type { Table } from './table';
 
 /** File formats a windows table can be read from. */
@@ -17,6 +18,11 @@ export interface ReadOptions {
   precision?: Precision;
   /** Size of the whole input in bytes when known (sizes buffers, decides 'auto' precision). */
   totalBytes?: number;
+  /**
+   * Cells of a text table read as missing (exact, case included, after trimming spaces); the empty
+   * cell always is. Default DEFAULT_MISSING_MARKERS; [''] means only the empty cell.
+   */
+  missing?: readonly string[];
 }
 
 export const DEFAULT_READ_OPTIONS: Required<ReadOptions> = {
@@ -24,6 +30,7 @@ export const DEFAULT_READ_OPTIONS: Required<ReadOptions> = {
   decimal: 'auto',
   precision: 'auto',
   totalBytes: 0,
+  missing: DEFAULT_MISSING_MARKERS,
 };
 
 /** Inputs larger than this keep feature columns in Float32 under precision 'auto'. */

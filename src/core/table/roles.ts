@@ -1,4 +1,5 @@
 import { OptionError } from '../errors';
+import { grouped, type Notice } from './notices';
 import { ROLES, type ColumnRole, type Role, type RoleOverrides, type Roles } from './roles.types';
 import type { CategoricalColumn, Column, NumericColumn, Table } from './table';
 
@@ -10,7 +11,7 @@ const NAME_WORDS: [Role, readonly string[]][] = [
   ['end', ['end', 'stop', 't1']],
   ['duration', ['duration', 'dur']],
   ['label', ['label', 'labels', 'activity', 'class', 'annotation', 'target', 'truth', 'behaviour', 'behavior']],
-  ['id', ['id', 'window', 'win', 'uuid', 'idx']],
+  ['id', ['id', 'window', 'win', 'uuid', 'uid', 'idx', 'index', 'row', 'rowid', 'rownum']],
   ['metadata', ['device', 'placement', 'site', 'group', 'location', 'sensor', 'lab', 'cohort', 'condition', 'sex', 'gender', 'environment']],
   ['ignore', ['note', 'notes', 'comment', 'comments', 'remark', 'remarks', 'description']],
 ];
@@ -143,7 +144,63 @@ function describe(column: Column, p: Profile, nRows: number): string {
   return parts.join('; ');
 }
 
-function inferOne(column: Column, nRows: number, taken: Set<Role>): ColumnRole {
+/**
+ * How an integer column's values look like a window identifier, in a few words, or null: a
+ * sequence (each value one more than the one before), counting up by 1 in runs that restart
+ * (a per-subject or per-recording counter), or near-unique integers that fill their range
+ * (a shuffled row number). Only the present values count; fewer than MIN_ID_ROWS never look so.
+ */
+function identifierShape(values: Float32Array | Float64Array, p: Profile, present: number): string | null {
+  if (present < MIN_ID_ROWS) return null;
+  let prev = NaN;
+  let plusOne = 0;
+  let steps = 0;
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (let r = 0; r < values.length; r++) {
+    const v = values[r];
+    if (v !== v) continue;
+    if (!Number.isInteger(v)) return null;
+    if (v < lo) lo = v;
+    if (v > hi) hi = v;
+    if (prev === prev) {
+      steps++;
+      if (v === prev + 1) plusOne++;
+    }
+    prev = v;
+  }
+  if (plusOne === steps) return 'a sequence of integers counting up by 1';
+  if (plusOne >= RUN_SHARE * steps) return `integers counting up by 1 in runs (${grouped(steps - plusOne)} restarts)`;
+  if (p.distinct >= NEAR_UNIQUE * present && hi - lo + 1 <= DENSE_SPAN * present) return `near-unique integers filling ${grouped(lo)}..${grouped(hi)}`;
+  return null;
+}
+
+/** Fewest present values an identifier is recognised from by its values. */
+const MIN_ID_ROWS = 10;
+/** Share of steps of +1 that makes "counting up in runs". */
+const RUN_SHARE = 0.9;
+/** Share of distinct values that makes "near-unique", and the widest range (× rows) they may fill. */
+const NEAR_UNIQUE = 0.95;
+const DENSE_SPAN = 1.1;
+
+/** Words that name an identifier by themselves ("window" also begins feature names such as window_steps). */
+const ID_WORDS: ReadonlySet<string> = new Set(['id', 'uid', 'uuid', 'idx', 'index', 'row', 'rowid', 'rownum']);
+
+/** True when a column's name says "identifier": an id word, or the name is just "window" / "win". */
+function namedLikeId(name: string): boolean {
+  const words = nameWords(name);
+  return words.some((w) => ID_WORDS.has(w)) || (words.length === 1 && (words[0] === 'window' || words[0] === 'win'));
+}
+
+function isIntegerColumn(values: Float32Array | Float64Array): boolean {
+  for (let r = 0; r < values.length; r++) {
+    const v = values[r];
+    if (v === v && !Number.isInteger(v)) return false;
+  }
+  return true;
+}
+
+function inferOne(column: Column, nRows: number, taken: Set<Role>, notices: Notice[], fileName: string, idColumn: () => string | undefined): ColumnRole {
   const p = profile(column, nRows);
   const facts = describe(column, p, nRows);
   const named = roleFromName(column.name);
@@ -158,6 +215,28 @@ function inferOne(column: Column, nRows: number, taken: Set<Role>): ColumnRole {
   if (present === 0) return say(named && free(named) ? named : 'feature', 'no values at all');
   const unique = p.distinct === present && present > 1;
   const repeated = p.distinct < present;
+
+  // An integer column whose name or values say "identifier" is the window id when unique, and is
+  // otherwise left out of the features, with a notice: clustering on a row counter is never meant.
+  if (column.kind === 'numeric' && column.time === undefined && (named === undefined || named === 'id') && present > 1 && isIntegerColumn(column.values)) {
+    const shape = identifierShape(column.values, p, present);
+    const byName = named === 'id' && namedLikeId(column.name);
+    if (byName || shape !== null) {
+      const why = [byName ? `name "${column.name}"` : '', shape ?? ''].filter((w) => w !== '').join(', ');
+      if (unique && free('id')) {
+        if (!byName) {
+          notices.push({ kind: 'window-id', column: column.name, message: `${fileName}, column "${column.name}": ${shape}, one per row: used as the window id` });
+        }
+        return say('id', why);
+      }
+      const held = unique
+        ? `is unique while "${idColumn() ?? ''}" is the window id`
+        : `holds ${grouped(p.distinct)} distinct value${p.distinct === 1 ? '' : 's'} in ${grouped(nRows)} rows${p.missing > 0 ? ` (${grouped(p.missing)} missing)` : ''}`;
+      const message = `${fileName}, column "${column.name}" looks like an identifier (${why}) but ${held}; not used as a feature`;
+      notices.push({ kind: 'id-like', column: column.name, count: p.distinct, message });
+      return say('ignore', `looks like an identifier (${why}); not used as a feature`);
+    }
+  }
 
   if (named && free(named)) {
     const byName = `name "${column.name}"`;
@@ -180,8 +259,16 @@ function inferOne(column: Column, nRows: number, taken: Set<Role>): ColumnRole {
         if (column.kind === 'categorical' || p.distinct <= MAX_CODES) return say(named, byName);
         break;
       case 'ignore':
+        notices.push({ kind: 'column-ignored', column: column.name, message: `${fileName}, column "${column.name}": not used (its name says free text)` });
         return say('ignore', `${byName}, free text`);
     }
+  }
+  if (named === 'id' && column.kind === 'categorical' && repeated && p.distinct <= nRows / 2) {
+    // Mostly repeated values are no window id (checkTable refuses a mostly-unique one that repeats).
+    notices.push({
+      kind: 'duplicate-ids', column: column.name, count: p.distinct,
+      message: `${fileName}, column "${column.name}" is named like a window id but repeats its values (${grouped(p.distinct)} distinct in ${grouped(nRows)} rows); not used as the window id`,
+    });
   }
   if (column.kind === 'categorical') return inferText(column, p, present, unique, free, say);
   return inferNumber(column, p, unique, free, say);
@@ -217,15 +304,24 @@ function isCounter(v: Float32Array | Float64Array): boolean {
  * a one-per-table role (id, subject, session, start, end, duration) an override already holds.
  */
 export function inferRoles(table: Table, overrides: RoleOverrides = {}): Roles {
+  return inferRolesTold(table, overrides).roles;
+}
+
+/** inferRoles, and the notices of the decisions a user should hear about (identifier columns). */
+export function inferRolesTold(table: Table, overrides: RoleOverrides = {}): { roles: Roles; notices: Notice[] } {
   const names = new Set(table.columns.map((c) => c.name));
   for (const [name, role] of Object.entries(overrides)) {
     if (!names.has(name)) throw new OptionError('role override column', name, `a column of ${table.fileName}`);
     if (!ROLES.includes(role)) throw new OptionError(`role for "${name}"`, role, `one of ${ROLES.join(', ')}`);
   }
   const taken = new Set<Role>(Object.values(overrides).filter((r) => SINGULAR.has(r)));
-  return table.columns.map((column) => {
+  const notices: Notice[] = [];
+  const roles: Roles = [];
+  // The id column so far, or the one an override names (for a notice on a second id-like column).
+  const idColumn = () => roles.find((r) => r.role === 'id')?.name ?? Object.entries(overrides).find(([, r]) => r === 'id')?.[0];
+  for (const column of table.columns) {
     const role = overrides[column.name];
-    if (role !== undefined) return { name: column.name, role, evidence: 'set by you' };
-    return inferOne(column, table.nRows, taken);
-  });
+    roles.push(role !== undefined ? { name: column.name, role, evidence: 'set by you' } : inferOne(column, table.nRows, taken, notices, table.fileName, idColumn));
+  }
+  return { roles, notices };
 }

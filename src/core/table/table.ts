@@ -1,3 +1,5 @@
+import type { MissingCount } from './missing-markers';
+
 /** How a time column was written in the file; its values are always numbers. */
 export type TimeFormat =
   /** ISO 8601 text; values are seconds since 1970-01-01T00:00:00Z (text without a zone is read as UTC). */
@@ -40,6 +42,8 @@ export interface Table {
    * absent (columnar files), row r is reported as r + 2, as if the file had one line per row.
    */
   lines?: Int32Array;
+  /** Text tables: the missing cells of each column that has any, by marker, in table order. */
+  missing?: MissingCount[];
 }
 
 export function findColumn(table: Table, name: string): Column | undefined {

@@ -1,4 +1,4 @@
-import { Float64, Int32, Table as ArrowTable, tableToIPC, vectorFromArray } from 'apache-arrow';
+import { Field, Float64, Int32, makeData, RecordBatch, Schema, Struct, Table as ArrowTable, tableToIPC, vectorFromArray } from 'apache-arrow';
 import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
@@ -72,6 +72,21 @@ describe('Parquet and Arrow IPC readers', () => {
     expect(text(t, 'subject')).toEqual(['S01', '', 'S01']);
     expect(text(t, 'acc')).toEqual(['0.5', '', '2']);
     expect(text(t, 'n')).toEqual(['1', '2', '3']);
+  });
+
+  it('refuses an Arrow IPC file with two columns of one name, as a text table\'s header is refused', async () => {
+    const fields = [new Field('id', new Int32()), new Field('acc', new Float64()), new Field('acc', new Float64())];
+    const children = [
+      makeData({ type: new Int32(), data: Int32Array.from([1, 2, 3]) }),
+      makeData({ type: new Float64(), data: Float64Array.from([0.1, 0.2, 0.3]) }),
+      makeData({ type: new Float64(), data: Float64Array.from([4, 5, 6]) }),
+    ];
+    const batch = new RecordBatch(new Schema(fields), makeData({ type: new Struct(fields), length: 3, nullCount: 0, children }));
+    const bytes = tableToIPC(new ArrowTable(batch), 'file');
+    writeFileSync(join(dir, 'twice.arrow'), bytes);
+    const e = await read(join(dir, 'twice.arrow')).catch((x: unknown) => x);
+    expect(e).toBeInstanceOf(InputError);
+    expect((e as InputError).message).toBe('twice.arrow, column "acc": expected unique column names, found "\\"acc\\" in columns 2 and 3"');
   });
 
   it('refuses a Parquet file cut short, saying so', async () => {

@@ -58,12 +58,12 @@ function readInTwo(bytes: Uint8Array, cut: number, options: ReadOptions, chunk: 
 
 const pick = <T>(random: Random, xs: T[]): T => xs[Math.floor(random() * xs.length)];
 
-/** A seeded file with the cells a study table holds: ids, subjects, ISO times, numbers, blanks, NA. */
+/** A seeded file with the cells a study table holds: ids, subjects, ISO times, numbers, blanks, missing-value markers. */
 function studyText(random: Random, rows: number, crlf: boolean, extra: (i: number) => string): string {
   const eol = crlf ? '\r\n' : '\n';
   const lines = ['id,subject,start,f0,f1,note'];
   for (let i = 0; i < rows; i++) {
-    const f0 = pick(random, ['', 'NA', (random() * 10 - 5).toFixed(3), `${Math.round(random() * 100)}e-2`]);
+    const f0 = pick(random, ['', 'NA', '?', '-', 'N/A', (random() * 10 - 5).toFixed(3), `${Math.round(random() * 100)}e-2`]);
     const f1 = (random() * 1000).toFixed(6);
     const sec = String(i % 60).padStart(2, '0');
     lines.push([i, `S${i % 3}`, `2024-03-10T08:00:${sec}Z`, f0, f1, extra(i)].join(','));
@@ -82,13 +82,16 @@ describe('CSV read in two parts, joined', () => {
     expect(lineEndAfter(enc('abcd'), 0)).toBe(-1);
   });
 
-  it('gives the single reader\'s table at every line cut, for text, ISO time, blank and NA cells, LF and CRLF', () => {
+  it('gives the single reader\'s table at every line cut, for text, ISO time, blank and marker cells, LF and CRLF', () => {
     const random = seededRandom(20261202);
     for (const crlf of [false, true]) {
       for (const precision of ['float64', 'float32'] as const) {
         const bytes = enc(studyText(random, 60, crlf, (i) => (i % 9 === 0 ? 'moved' : '')));
         const whole = readWhole(bytes, { ...COMMA, precision });
         expect(typeof whole).not.toBe('string');
+        // The per-marker counts are part of the table, so the join must add them up too.
+        const f0 = (whole as Table).missing?.find((m) => m.column === 'f0');
+        expect(Object.keys(f0?.byMarker ?? {}).sort()).toEqual(['', '-', '?', 'N/A', 'NA']);
         let joined = 0;
         for (let cut = lineEndAfter(bytes, 0); cut > 0 && cut < bytes.length; cut = lineEndAfter(bytes, cut)) {
           for (const chunk of [7, 1 << 20]) {
@@ -108,6 +111,23 @@ describe('CSV read in two parts, joined', () => {
     const whole = readWhole(bytes, COMMA);
     for (let cut = lineEndAfter(bytes, 0); cut > 0 && cut < bytes.length; cut = lineEndAfter(bytes, cut)) {
       expect(readInTwo(bytes, cut, COMMA, 3)).toEqual(whole);
+    }
+  });
+
+  it('reads the rest with the first reader\'s missing-value markers, a list of one\'s own included', () => {
+    const lines = ['id,f'];
+    const counts = { gap: 0, '': 0 };
+    for (let i = 0; i < 40; i++) {
+      const cell = i % 5 === 0 ? 'gap' : i % 7 === 0 ? '' : String(i / 2);
+      if (cell === 'gap' || cell === '') counts[cell]++;
+      lines.push(`${i},${cell}`);
+    }
+    const bytes = enc(`${lines.join('\n')}\n`);
+    const options = { ...COMMA, missing: ['gap'] };
+    const whole = readWhole(bytes, options) as Table;
+    expect(whole.missing).toEqual([{ column: 'f', total: counts.gap + counts[''], byMarker: counts }]);
+    for (let cut = lineEndAfter(bytes, 0); cut > 0 && cut < bytes.length; cut = lineEndAfter(bytes, cut)) {
+      expect(readInTwo(bytes, cut, options, 16)).toEqual(whole);
     }
   });
 
