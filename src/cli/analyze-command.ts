@@ -23,6 +23,9 @@ import { windowTimes } from '../core/export/segments';
 import { attachSubjects, recipeOption, useSubjectColumn } from './recipe-options';
 import { keepRows } from '../core/recipe/keep-rows';
 import { analyzeParams } from './pipeline-options';
+import { encodeStudy } from '../core/study/encode';
+import { analyzeStudy } from './analyze-study';
+import { outputTime } from './source-date';
 
 export interface AnalyzeDeps {
   client: JobClient<Jobs>;
@@ -38,14 +41,15 @@ export interface AnalyzeOutcome {
   result: AnalysisResult;
 }
 
-/** load → parse (worker) → feature matrix → analyze (worker) → windows.csv + summary.json. */
+/** load → parse (worker) → feature matrix → analyze (worker) → windows.csv + summary.json + study.gleaner. */
 export async function analyzeCommand(opts: AnalyzeOptions, deps: AnalyzeDeps): Promise<AnalyzeOutcome> {
   const outDir = resolve(opts.out);
-  const outFiles = { windows: join(outDir, 'windows.csv'), summary: join(outDir, 'summary.json') };
+  const outFiles = { windows: join(outDir, 'windows.csv'), summary: join(outDir, 'summary.json'), study: join(outDir, 'study.gleaner') };
   refuseToOverwriteInput(opts.input, outDir, Object.values(outFiles));
 
   const input = await readInputStep(opts.input, deps);
   const { fileName, sha256 } = input;
+  const createdAt = outputTime(); // a malformed SOURCE_DATE_EPOCH stops before the long run
   let table = input.table;
   let roles = inferRoles(table);
   for (const w of checkTable(table, roles)) process.stderr.write(`gleaner: warning: ${w.message}\n`);
@@ -63,6 +67,9 @@ export async function analyzeCommand(opts: AnalyzeOptions, deps: AnalyzeDeps): P
   if (recipe) params.recipe = recipe;
   const analyzePayload: AnalyzeJob = { matrix, params };
   const result = await runJob(deps, analyzePayload, [matrix.data.buffer as ArrayBuffer], 'analysing');
+  const study = analyzeStudy({
+    inputPath: resolve(opts.input), outDir, fileName, sha256, rows: table.nRows, roles, params, result, createdAt, version: deps.version,
+  });
   // The recipe dropped windows: the outputs list the analysed windows only.
   if (result.windows) ({ table, roles } = keepRows(table, roles, result.windows));
 
@@ -83,8 +90,9 @@ export async function analyzeCommand(opts: AnalyzeOptions, deps: AnalyzeDeps): P
   mkdirSync(outDir, { recursive: true });
   writeFileAtomic(outFiles.windows, mapCsv({ table, roles, result }));
   writeFileAtomic(outFiles.summary, `${JSON.stringify(summary, null, 2)}\n`);
+  writeFileAtomic(outFiles.study, encodeStudy(study));
   const eventFiles = opts.events ? writeEventFiles(outDir, opts.input, table, roles, result) : [];
-  return { files: [outFiles.windows, outFiles.summary, ...eventFiles], rows: n, result };
+  return { files: [outFiles.windows, outFiles.summary, outFiles.study, ...eventFiles], rows: n, result };
 }
 
 async function runJob(deps: AnalyzeDeps, payload: AnalyzeJob, transfer: ArrayBuffer[], label: string): Promise<AnalysisResult> {

@@ -18,6 +18,7 @@ import { readInputStep } from './read-input';
 import { attachSubjects } from './recipe-options';
 import { VERSION } from './version';
 import { writeFileAtomic } from './write-atomic';
+import { outputTime } from './source-date';
 
 const RUN_ID: ParamSpec<string> = { name: 'run', flag: 'run', meta: '<id>', kind: 'text', default: '', help: ['only this run (default: every run)'] };
 const INPUT: ParamSpec<string> = {
@@ -165,7 +166,7 @@ export async function runRunCommand(argv: readonly string[]): Promise<number> {
     process.on('SIGINT', onSigint);
     const outcome = await runStudy(opts, {
       progress: opts.progress,
-      now: () => new Date().toISOString(),
+      now: () => outputTime(),
       cancelled: () => cancelled,
       warn: (line) => process.stderr.write(`gleaner: warning: ${line}\n`),
     });
