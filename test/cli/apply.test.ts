@@ -134,7 +134,8 @@ describe('gleaner apply', { timeout: 600_000 }, () => {
     const r = cli(['apply', join(GOLDEN_ROOT, 'demo-study.gleaner'), join(dir, 'windows.csv'), '--study-input', DEMO, '--out', join(dir, 'curated'), '--progress', 'none']);
     expect(r.status, r.stderr).toBe(0);
     const path = join(dir, 'curated', 'windows.labels.csv');
-    const rows = column(path, 'cluster').map((c, i) => [c, column(path, 'cluster_name')[i], column(path, 'class_name')[i], column(path, 'set_aside')[i]].join('|'));
+    const [names, classes, aside] = ['cluster_name', 'class_name', 'set_aside'].map((c) => column(path, c));
+    const rows = column(path, 'cluster').map((c, i) => [c, names[i], classes[i], aside[i]].join('|'));
     expect([...new Set(rows)].sort()).toEqual([
       '1|walking|walking|0', '2|maybe typing||0', '3|candidate 3||0', '4|candidate 4||1', '6|stairs|stairs|0',
     ]);
