@@ -161,6 +161,27 @@ describe('gleaner apply', { timeout: 600_000 }, () => {
     expect(r.stderr).toBe('gleaner: text.csv, row 3, column "acc_x_mean": expected a number (leave the cell empty or write NA for a missing value), found "high"\n');
   }, 120_000);
 
+  it('refuses a missing value when the study\'s recipe fills none, naming file, row and column', () => {
+    writeFileSync(join(dir, 'zscore-only.json'), JSON.stringify({ version: 1, steps: [{ type: 'zscore' }] }));
+    const a = cli(['analyze', join(dir, 'windows.csv'), '--out', join(dir, 'zscore-only'), '--recipe', join(dir, 'zscore-only.json'), '--k', '4', '--progress', 'none']);
+    expect(a.status, a.stderr).toBe(0);
+    const lines = [HEADER, ...linesOf(['S02'])];
+    const j = HEADER.split(',').indexOf('gyr_x_sd');
+    lines[4] = lines[4].split(',').map((v, c) => (c === j ? '' : v)).join(',');
+    writeFileSync(join(dir, 'gap.csv'), lines.join('\n') + '\n');
+    const r = cli(['apply', join(dir, 'zscore-only', 'study.gleaner'), join(dir, 'gap.csv'), '--out', join(dir, 'gap'), '--progress', 'none']);
+    expect(r.status).toBe(1);
+    expect(r.stderr).toBe('gleaner: gap.csv, row 5, column "gyr_x_sd": expected a value: the study\'s recipe does not fill missing values (add an impute step to it), found "a missing value"\n');
+  }, 120_000);
+
+  it('refuses a run clustered on the map, naming the study', () => {
+    const a = cli(['analyze', join(dir, 'windows.csv'), '--out', join(dir, 'on-map'), '--space', 'map', '--k', '4', '--progress', 'none']);
+    expect(a.status, a.stderr).toBe(0);
+    const r = cli(['apply', join(dir, 'on-map', 'study.gleaner'), join(dir, 'windows.csv'), '--out', join(dir, 'on-map-labels'), '--progress', 'none']);
+    expect(r.status).toBe(1);
+    expect(r.stderr).toBe('gleaner: study.gleaner: expected a k-means or tree run clustered in the scaled feature space (apply assigns by nearest centroid there), found "run run-1: clustered on the map"\n');
+  }, 120_000);
+
   it('refuses a per-subject recipe on a partition holding a single window of a subject', () => {
     writeFileSync(join(dir, 'split.csv'), [HEADER, linesOf(['S01'])[0], ...linesOf(['S02'])].join('\n') + '\n');
     const r = cli(['apply', study('per-subject recipe'), join(dir, 'split.csv'), '--out', join(dir, 'split'), '--progress', 'none']);
