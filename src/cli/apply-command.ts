@@ -1,6 +1,6 @@
 import { createHash } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, realpathSync, statSync } from 'node:fs';
-import { basename, dirname, extname, isAbsolute, join, resolve } from 'node:path';
+import { basename, dirname, extname, isAbsolute, join, resolve, sep } from 'node:path';
 import { applyFrozen, SplitSubjectError } from '../core/apply/frozen-recipe';
 import { applyLabelsCsv } from '../core/apply/labels-csv';
 import { clusterIdentity } from '../core/apply/cluster-name';
@@ -12,6 +12,7 @@ import { subjectCodes } from '../core/recipe/subject-codes';
 import { checkInputs } from '../core/study/check-inputs';
 import { decodeStudy } from '../core/study/decode';
 import type { Study, StudyRun } from '../core/study/study.types';
+import { concatTables } from '../core/table/concat';
 import { featureMatrix } from '../core/table/matrix';
 import { findColumn, rowLine, type Table } from '../core/table/table';
 import { OUT, PROGRESS, PROGRESS_SHORT } from './cli-flags';
@@ -126,7 +127,7 @@ export async function applyStudy(opts: ApplyOptions, deps: { cancelled(): boolea
   for (const [t, path] of opts.inputs.entries()) {
     if (deps.cancelled()) throw new CancelledError();
     const read = await readInputStep(path, { progress: bar, onJob: () => {} }, { precision: 'float64' });
-    const csv = labelTable(read.table, run, model, studyName);
+    const csv = labelTable(withPartitionColumns(read.table, path, run), run, model, studyName);
     const outPath = join(outDir, names[t]);
     if (existsSync(outPath) && inputReal.has(realpathSync(outPath))) throw new UsageError(`refusing to write ${outPath}: it is an input file; choose another --out`);
     writeFileAtomic(outPath, csv.text);
@@ -145,7 +146,9 @@ export async function applyStudy(opts: ApplyOptions, deps: { cancelled(): boolea
       run: run.id,
       input: study.inputs[run.input],
     },
-    assignment: 'the curated cluster with the nearest centroid (Euclidean, after the study\'s frozen recipe); confidence 1 - d1/d2 (docs/apply.md)',
+    assignment: !run.result.tree
+      ? 'the curated cluster with the nearest centroid (Euclidean, after the study\'s frozen recipe); confidence 1 - d1/d2 (docs/apply.md)'
+      : 'the curated cluster of the nearest centroid of its parts in the run\'s tree cut finer (Euclidean, after the study\'s frozen recipe); confidence 1 - d1/d2 over the curated clusters\' centroids (docs/apply.md)',
     clusters: model.clusters.map((g) => {
       const note = model.notes[g];
       const id = clusterIdentity(g, note);
@@ -236,6 +239,24 @@ function labelTable(table: Table, run: StudyRun, model: StudyModel, studyName: s
   }
   const { labels, confidence } = assignWindows(model, out.data, out.n);
   return { text: applyLabelsCsv({ table, roles: run.roles, model, rows: out.windows, labels, confidence }), labelled: out.n };
+}
+
+/**
+ * A part file of a partitioned dataset (`.../subject=S01/part-0.parquet`) often lacks the columns
+ * its folders name: those the study knows are added from the folder names (as a folder input gets
+ * them), so the part's windows keep their subject.
+ */
+function withPartitionColumns(table: Table, path: string, run: StudyRun): Table {
+  if (statSync(path).isDirectory()) return table;
+  const known = new Set(run.roles.map((r) => r.name));
+  const partition: Record<string, string> = {};
+  for (const seg of resolve(path).split(sep).slice(0, -1)) {
+    const eq = seg.indexOf('=');
+    if (eq <= 0) continue;
+    const key = decodeURIComponent(seg.slice(0, eq));
+    if (known.has(key) && !findColumn(table, key)) partition[key] = decodeURIComponent(seg.slice(eq + 1));
+  }
+  return Object.keys(partition).length === 0 ? table : concatTables([{ table, partition }], table.fileName);
 }
 
 /** The input's columns must be the study's: every feature column, and no column the study does not know. */
