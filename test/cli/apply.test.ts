@@ -3,7 +3,8 @@
  * partitions in four formats (CSV, TSV, Parquet written by DuckDB, Arrow IPC written by
  * apache-arrow) exactly as it labels the whole file, row for row; (2) the study's own windows with
  * the clusters analyze gave them for at least 99.5% of windows; (3) with the curation of a saved
- * study (names, classes, a set-aside cluster, a merge). Bad partitions get one line each.
+ * study (names, classes, a set-aside cluster, a merge); (4) as array tasks of
+ * examples/slurm-apply.sh. Bad partitions get one line each.
  */
 import { spawnSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
@@ -125,6 +126,29 @@ describe('gleaner apply', { timeout: 600_000 }, () => {
     }
     // DuckDB writes each partition's rows in an order of its own: compare the labelled windows as sets.
     expect(labelled.sort()).toEqual([...whole].sort());
+  }, 300_000);
+
+  it('examples/slurm-apply.sh: array tasks 0-3 (SLURM_ARRAY_TASK_ID set as sbatch sets it) give the whole file\'s labels', () => {
+    writeFileSync(join(dir, 'parts.txt'), parts.join('\n') + '\n');
+    const outputs: string[] = [];
+    for (let task = 0; task < parts.length; task++) {
+      const r = spawnSync('bash', ['examples/slurm-apply.sh', study('kmeans'), join(dir, 'parts.txt'), join(dir, 'slurm')], {
+        cwd: ROOT, encoding: 'utf8', timeout: 120_000,
+        env: { ...process.env, SLURM_ARRAY_TASK_ID: String(task), GLEANER: `${process.execPath} --import tsx src/cli/main.ts` },
+      });
+      expect(r.status, r.stderr).toBe(0);
+      const folder = join(dir, 'slurm', 'parts', String(task).padStart(6, '0'));
+      outputs.push(join(folder, `p${task + 1}.labels.csv`));
+      expect(JSON.parse(readFileSync(join(folder, 'manifest.json'), 'utf8')).inputs[0].sha256).toBe(sha256(parts[task]));
+    }
+    const whole = cli(['apply', study('kmeans'), join(dir, 'windows.csv'), '--out', join(dir, 'slurm-whole'), '--progress', 'none']);
+    expect(whole.status, whole.stderr).toBe(0);
+    expect(outputs.flatMap(body)).toEqual(body(join(dir, 'slurm-whole', 'windows.labels.csv')));
+    const beyond = spawnSync('bash', ['examples/slurm-apply.sh', study('kmeans'), join(dir, 'parts.txt'), join(dir, 'slurm')], {
+      cwd: ROOT, encoding: 'utf8', env: { ...process.env, SLURM_ARRAY_TASK_ID: '4' },
+    });
+    expect(beyond.status).toBe(1);
+    expect(beyond.stderr).toBe(`slurm-apply: ${join(dir, 'parts.txt')} has no line 5 for array task 4\n`);
   }, 300_000);
 
   for (const name of Object.keys(STUDIES) as StudyName[]) {
