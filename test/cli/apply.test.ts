@@ -162,6 +162,11 @@ describe('gleaner apply', { timeout: 600_000 }, () => {
       console.log(`apply reproduces analyze (${name}): ${same} of ${analyzed.length} windows (${((100 * same) / analyzed.length).toFixed(2)}%)`);
       expect(applied.length).toBe(analyzed.length);
       expect(same / analyzed.length).toBeGreaterThanOrEqual(0.995);
+      // Confidence is the analysis's own rule on the same centroids (the study has no curation).
+      const conf = column(join(study(name), '..', 'windows.csv'), 'confidence');
+      const sameConfidence = column(labels, 'confidence').filter((c, i) => c === conf[i]).length;
+      console.log(`apply's confidence equals analyze's (${name}): ${sameConfidence} of ${conf.length} windows`);
+      expect(sameConfidence / conf.length).toBeGreaterThanOrEqual(0.995);
       // The same study and input give the same bytes again.
       const before = readFileSync(labels);
       const again = cli(['apply', study(name), join(dir, 'windows.csv'), '--out', join(dir, `again-${name}`), '--progress', 'none']);

@@ -4,7 +4,6 @@ import { DEFAULT_RECIPE, type Recipe } from '../recipe/recipe.types';
 import { parseRecipe } from '../recipe/parse-recipe';
 import { runCuration } from '../study/run-curation';
 import type { StudyRun } from '../study/study.types';
-import { squaredDistance } from '../cluster/distance';
 import { cutTree } from '../cluster/hierarchy/cut';
 import { fitRecipe, type FrozenRecipe } from './frozen-recipe';
 
@@ -133,23 +132,43 @@ function means(data: Float64Array, n: number, d: number, groupOf: Int32Array, gr
 export function assignWindows(model: StudyModel, data: Float64Array, n: number): { labels: Int32Array; confidence: Float32Array } {
   const { d, centroids, centroidCluster, clusterCentroids, clusters } = model;
   const groups = centroidCluster.length;
+  const k = clusters.length;
   const labels = new Int32Array(n);
   const confidence = new Float32Array(n);
   for (let i = 0; i < n; i++) {
+    const o = i * d;
     let nearest = Infinity;
     let best = 0;
     for (let g = 0; g < groups; g++) {
-      const dist = squaredDistance(data, i * d, centroids, g * d, d);
+      const dist = distance2(data, o, centroids, g * d, d, nearest);
       if (dist < nearest) { nearest = dist; best = g; }
     }
     labels[i] = centroidCluster[best];
     let d1 = Infinity;
     let d2 = Infinity;
-    for (let r = 0; r < clusters.length; r++) {
-      const dist = squaredDistance(data, i * d, clusterCentroids, r * d, d);
+    for (let r = 0; r < k; r++) {
+      const dist = distance2(data, o, clusterCentroids, r * d, d, d2);
       if (dist < d1) { d2 = d1; d1 = dist; } else if (dist < d2) d2 = dist;
     }
     confidence[i] = d2 > 0 && Number.isFinite(d2) ? 1 - Math.sqrt(d1) / Math.sqrt(d2) : 0;
   }
   return { labels, confidence };
+}
+
+/**
+ * Squared Euclidean distance, summed in feature order (as squaredDistance), stopping early once
+ * the partial sum exceeds `bound` (the result is then some value above `bound`, never used).
+ */
+function distance2(a: Float64Array, ao: number, b: Float64Array, bo: number, d: number, bound: number): number {
+  let s = 0;
+  let j = 0;
+  while (j < d) {
+    const end = Math.min(d, j + 8);
+    for (; j < end; j++) {
+      const t = a[ao + j] - b[bo + j];
+      s += t * t;
+    }
+    if (s > bound) return s;
+  }
+  return s;
 }
