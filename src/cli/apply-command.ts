@@ -207,9 +207,12 @@ function labelTable(table: Table, run: StudyRun, model: StudyModel, studyName: s
       for (let i = 0; i < n; i++) data[i * d + j] = column.values[i];
       return;
     }
-    // A text column holding no value at all is an all-missing feature; any text is refused.
-    const bad = column.codes.findIndex((c) => c >= 0);
-    if (bad >= 0) throw new InputError({ file: table.fileName, row: rowLine(table, bad), column: name, expected: `a number (a feature of ${studyName})`, found: column.dictionary[column.codes[bad]] });
+    // A text column holding no value at all is an all-missing feature; any text is refused, naming
+    // the first cell that is not a number (or, when every cell reads as one, the column's type).
+    const text = (c: number) => column.dictionary[c];
+    const bad = column.codes.findIndex((c) => c >= 0 && !/^\s*[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?\s*$/.test(text(c)));
+    if (bad >= 0) throw new InputError({ file: table.fileName, row: rowLine(table, bad), column: name, expected: `a number (a feature of ${studyName})`, found: text(column.codes[bad]) });
+    if (column.codes.some((c) => c >= 0)) throw new InputError({ file: table.fileName, column: name, expected: `a numeric column (a feature of ${studyName})`, found: 'numbers stored as text' });
     for (let i = 0; i < n; i++) data[i * d + j] = NaN;
   });
   const subjectRole = run.roles.find((r) => r.role === 'subject');

@@ -209,6 +209,26 @@ describe('gleaner apply', { timeout: 600_000 }, () => {
     expect(r.stderr).toBe('gleaner: text.csv, row 3, column "acc_x_mean": expected a number (leave the cell empty or write NA for a missing value), found "high"\n');
   }, 120_000);
 
+  it('refuses a typed text feature column (Arrow), naming file, row and column', () => {
+    const names = HEADER.split(',');
+    const cells = linesOf(['S03']).map((l) => l.split(','));
+    const columns: Record<string, Float64Array | string[]> = {};
+    names.forEach((name, j) => {
+      const texts = cells.map((c) => c[j]);
+      columns[name] = j < 8 || name === 'acc_y_sd' ? texts.map((t, i) => (name === 'acc_y_sd' && i === 6 ? 'n/a' : t)) : Float64Array.from(texts, Number);
+    });
+    writeFileSync(join(dir, 'typed.arrow'), tableToIPC(tableFromArrays(columns), 'file'));
+    const r = cli(['apply', study('kmeans'), join(dir, 'typed.arrow'), '--out', join(dir, 'typed'), '--progress', 'none']);
+    expect(r.status).toBe(1);
+    expect(r.stderr).toBe('gleaner: typed.arrow, row 8, column "acc_y_sd": expected a number (a feature of study.gleaner), found "n/a"\n');
+    // Every cell reads as a number, but the column is typed as text.
+    columns.acc_y_sd = cells.map((c) => c[names.indexOf('acc_y_sd')]);
+    writeFileSync(join(dir, 'typed-all.arrow'), tableToIPC(tableFromArrays(columns), 'file'));
+    const all = cli(['apply', study('kmeans'), join(dir, 'typed-all.arrow'), '--out', join(dir, 'typed'), '--progress', 'none']);
+    expect(all.status).toBe(1);
+    expect(all.stderr).toBe('gleaner: typed-all.arrow, column "acc_y_sd": expected a numeric column (a feature of study.gleaner), found "numbers stored as text"\n');
+  }, 120_000);
+
   it('refuses a missing value when the study\'s recipe fills none, naming file, row and column', () => {
     writeFileSync(join(dir, 'zscore-only.json'), JSON.stringify({ version: 1, steps: [{ type: 'zscore' }] }));
     const a = cli(['analyze', join(dir, 'windows.csv'), '--out', join(dir, 'zscore-only'), '--recipe', join(dir, 'zscore-only.json'), '--k', '4', '--progress', 'none']);
