@@ -177,13 +177,17 @@ function pickRun(study: Study, studyName: string, id: string | undefined): Study
 /** Reads the study's own input (hash-checked) and learns the frozen recipe and centroids. */
 async function learnModel(study: Study, studyName: string, run: StudyRun, opts: ApplyOptions, bar: ProgressReporter): Promise<StudyModel> {
   const saved = study.inputs[run.input];
-  const path = opts.studyInput ?? (isAbsolute(saved.path || saved.fileName) ? saved.path : join(dirname(resolve(opts.study)), saved.path || saved.fileName));
+  // As `gleaner run` finds it: --study-input, else the saved path (a relative one from the study's folder).
+  const savedPath = saved.path || saved.fileName;
+  const path = opts.studyInput ?? (isAbsolute(savedPath) ? savedPath : join(dirname(resolve(opts.study)), savedPath));
   if (!existsSync(path)) {
     throw new InputError({ file: studyName, expected: `its input ${saved.fileName} at ${path} (the recipe is frozen on it; name it with --study-input)`, found: 'no such file' });
   }
   const read = await readInputStep(path, { progress: bar, onJob: () => {} });
   const [check] = checkInputs({ inputs: [saved] }, [read.sha256]);
-  if (check.status !== 'same') throw new InputError({ file: read.fileName, expected: `the input saved in ${studyName} (SHA-256 ${check.expected})`, found: `SHA-256 ${check.found}` });
+  if (check.status !== 'same') {
+    throw new InputError({ file: read.fileName, expected: `the input saved in ${studyName} (SHA-256 ${check.expected}; this file's is ${check.found})`, found: 'a changed file' });
+  }
   const matrix = featureMatrix(read.table, run.roles);
   attachSubjects(matrix, read.table, run.roles);
   try {

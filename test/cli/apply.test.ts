@@ -8,7 +8,7 @@
  */
 import { spawnSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
-import { copyFileSync, readFileSync, writeFileSync } from 'node:fs';
+import { copyFileSync, existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { tableFromArrays, tableToIPC } from 'apache-arrow';
 import { beforeAll, describe, expect, it } from 'vitest';
@@ -227,6 +227,21 @@ describe('gleaner apply', { timeout: 600_000 }, () => {
     const all = cli(['apply', study('kmeans'), join(dir, 'typed-all.arrow'), '--out', join(dir, 'typed'), '--progress', 'none']);
     expect(all.status).toBe(1);
     expect(all.stderr).toBe('gleaner: typed-all.arrow, column "acc_y_sd": expected a numeric column (a feature of study.gleaner), found "numbers stored as text"\n');
+  }, 120_000);
+
+  it('refuses a study whose own windows table is missing or changed (the recipe is frozen on it)', () => {
+    // The study's saved input path is ../windows.csv: two folders down, nothing is there.
+    const moved = join(dir, 'moved', 'deeper');
+    mkdirSync(moved, { recursive: true });
+    copyFileSync(study('kmeans'), join(moved, 'study.gleaner'));
+    const missing = cli(['apply', join(moved, 'study.gleaner'), parts[0], '--out', join(dir, 'moved-out'), '--progress', 'none']);
+    expect(missing.status).toBe(1);
+    expect(missing.stderr).toBe(`gleaner: study.gleaner: expected its input windows.csv at ${join(dir, 'moved', 'windows.csv')} (the recipe is frozen on it; name it with --study-input), found "no such file"\n`);
+    writeFileSync(join(dir, 'changed.csv'), [HEADER, ...LINES.slice(1, -1)].join('\n') + '\n');
+    const changed = cli(['apply', join(moved, 'study.gleaner'), parts[0], '--study-input', join(dir, 'changed.csv'), '--out', join(dir, 'moved-out'), '--progress', 'none']);
+    expect(changed.status).toBe(1);
+    expect(changed.stderr).toBe(`gleaner: changed.csv: expected the input saved in study.gleaner (SHA-256 ${sha256(DEMO)}; this file's is ${sha256(join(dir, 'changed.csv'))}), found "a changed file"\n`);
+    expect(existsSync(join(dir, 'moved-out'))).toBe(false);
   }, 120_000);
 
   it('refuses a missing value when the study\'s recipe fills none, naming file, row and column', () => {
