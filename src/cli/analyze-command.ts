@@ -28,6 +28,9 @@ import { runStability } from './stability-option';
 import { missingNotices } from '../core/table/notices';
 import { missingByFeature, recipeNotices } from '../core/recipe/notices';
 import { checkRoleColumns, printNotices } from './table-options';
+import { encodeStudy } from '../core/study/encode';
+import { analyzeStudy } from './analyze-study';
+import { outputTime } from './source-date';
 
 export interface AnalyzeDeps {
   client: JobClient<Jobs>;
@@ -43,14 +46,15 @@ export interface AnalyzeOutcome {
   result: AnalysisResult;
 }
 
-/** load → parse (worker) → feature matrix → analyze (worker) → windows.csv + summary.json. */
+/** load → parse (worker) → feature matrix → analyze (worker) → windows.csv + summary.json + study.gleaner. */
 export async function analyzeCommand(opts: AnalyzeOptions, deps: AnalyzeDeps): Promise<AnalyzeOutcome> {
   const outDir = resolve(opts.out);
-  const outFiles = { windows: join(outDir, 'windows.csv'), summary: join(outDir, 'summary.json') };
+  const outFiles = { windows: join(outDir, 'windows.csv'), summary: join(outDir, 'summary.json'), study: join(outDir, 'study.gleaner') };
   refuseToOverwriteInput(opts.input, outDir, Object.values(outFiles));
 
   const input = await readInputStep(opts.input, deps, opts.missing ? { missing: opts.missing } : undefined);
   const { fileName, sha256 } = input;
+  const createdAt = outputTime(); // a malformed SOURCE_DATE_EPOCH stops before the long run
   let table = input.table;
   checkRoleColumns(table, opts.roles);
   const inferred = inferRolesTold(table, opts.roles);
@@ -81,6 +85,9 @@ export async function analyzeCommand(opts: AnalyzeOptions, deps: AnalyzeDeps): P
   const told = recipeNotices(fileName, missing, result.recipe);
   printNotices(told, 'summary.json notices');
   notices.push(...told);
+  const study = analyzeStudy({
+    inputPath: resolve(opts.input), outDir, fileName, sha256, rows: table.nRows, roles, params, result, createdAt, version: deps.version,
+  });
   // The recipe dropped windows: the outputs list the analysed windows only.
   if (result.windows) ({ table, roles } = keepRows(table, roles, result.windows));
 
@@ -105,8 +112,9 @@ export async function analyzeCommand(opts: AnalyzeOptions, deps: AnalyzeDeps): P
   mkdirSync(outDir, { recursive: true });
   writeFileAtomic(outFiles.windows, mapCsv({ table, roles, result, identities }));
   writeFileAtomic(outFiles.summary, `${JSON.stringify(summary, null, 2)}\n`);
+  writeFileAtomic(outFiles.study, encodeStudy(study));
   const eventFiles = opts.events ? writeEventFiles(outDir, opts.input, table, roles, result, identities) : [];
-  return { files: [outFiles.windows, outFiles.summary, ...eventFiles], rows: n, result };
+  return { files: [outFiles.windows, outFiles.summary, outFiles.study, ...eventFiles], rows: n, result };
 }
 
 async function runJob(deps: AnalyzeDeps, payload: AnalyzeJob, transfer: ArrayBuffer[], label: string): Promise<AnalysisResult> {

@@ -63,11 +63,13 @@ export const ANALYZE: CommandSpec = {
 export const USAGE = `Usage: gleaner analyze <windows.csv> --out <dir> [options]
        gleaner sweep <windows.csv> --k-min 2 --k-max 12 [--json]   (metrics per k; gleaner sweep --help)
        gleaner run <study file> --out <dir>   (reproduce a saved study; gleaner run --help)
+       gleaner apply <study file> <input>... --out <dir>   (label new windows with a study; gleaner apply --help)
        gleaner inspect <file>   (JSON summary of a windows table or a raw EDF/CSV signal file)
 
 Loads a featurized windows table, scales the features, makes a map of them (PCA, t-SNE or UMAP)
-and clusters them (k-means, a tree or HDBSCAN). Writes <dir>/windows.csv (id, subject, start, end, x, y, cluster, confidence) and
-<dir>/summary.json (input hash, recipe, algorithms, seed, metrics, subject mix per cluster).
+and clusters them (k-means, a tree or HDBSCAN). Writes <dir>/windows.csv (id, subject, start, end, x, y, cluster, confidence),
+<dir>/summary.json (input hash, recipe, algorithms, seed, metrics, subject mix per cluster) and
+<dir>/study.gleaner (the run as a study the app opens; its time is SOURCE_DATE_EPOCH when set).
 
 Options:
 ${commandUsage(ANALYZE)}

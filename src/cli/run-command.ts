@@ -19,6 +19,7 @@ import { attachSubjects } from './recipe-options';
 import { VERSION } from './version';
 import { writeFileAtomic } from './write-atomic';
 import { withSavedIdentities } from '../core/curation/carry-identities';
+import { outputTime } from './source-date';
 
 const RUN_ID: ParamSpec<string> = { name: 'run', flag: 'run', meta: '<id>', kind: 'text', default: '', help: ['only this run (default: every run)'] };
 const INPUT: ParamSpec<string> = {
@@ -167,7 +168,7 @@ export async function runRunCommand(argv: readonly string[]): Promise<number> {
     process.on('SIGINT', onSigint);
     const outcome = await runStudy(opts, {
       progress: opts.progress,
-      now: () => new Date().toISOString(),
+      now: () => outputTime(),
       cancelled: () => cancelled,
       warn: (line) => process.stderr.write(`gleaner: warning: ${line}\n`),
     });

@@ -1,5 +1,5 @@
 // Crash safety of the CLI's outputs: the CLI is killed with SIGKILL while it writes windows.csv,
-// then while it writes summary.json (test/cli/slow-writes.mjs slows its writes of temporary files
+// then summary.json, then study.gleaner (test/cli/slow-writes.mjs slows its writes of temporary files
 // so the kill lands mid-write). Each output under its real name is always a whole file, the earlier
 // one or the new one; the half-written temporary file is removed by the next run.
 import { spawn } from 'node:child_process';
@@ -17,9 +17,12 @@ function windowsTable(dir: string): string {
   return path;
 }
 
+// The study's createdAt follows SOURCE_DATE_EPOCH: fixed, so two runs with one seed write the same study.
+process.env.SOURCE_DATE_EPOCH = '0';
 let input = '';
 const analyze = (seed: number, out: string) => ['analyze', input, '--k', '4', '--seed', String(seed), '--restarts', '1', '--progress', 'none', '--out', out];
-const files = (dir: string) => ({ windows: readFileSync(join(dir, 'windows.csv')), summary: readFileSync(join(dir, 'summary.json')) });
+const files = (dir: string) => ({ windows: readFileSync(join(dir, 'windows.csv')), summary: readFileSync(join(dir, 'summary.json')), study: readFileSync(join(dir, 'study.gleaner')) });
+const OUTPUTS = ['study.gleaner', 'summary.json', 'windows.csv'];
 
 /** Runs the CLI with slowed writes and kills it once a temporary file of `output` exists. */
 async function killWhileWriting(args: string[], out: string, output: string): Promise<{ temp: string; size: number }> {
@@ -50,20 +53,25 @@ describe('the CLI killed while it writes its outputs', () => {
     const earlier = files(out);
     expect(earlier.windows.equals(next.windows)).toBe(false);
 
-    // Killed during windows.csv: both outputs are the earlier ones.
+    // Killed during windows.csv: every output is the earlier one.
     const first = await killWhileWriting(analyze(2, out), out, 'windows.csv');
     expect(first.size).toBeLessThan(next.windows.length);
     expect(files(out)).toEqual(earlier);
-    expect(readdirSync(out).sort()).toEqual([first.temp, 'summary.json', 'windows.csv'].sort());
+    expect(readdirSync(out).sort()).toEqual([first.temp, ...OUTPUTS].sort());
 
     // Killed during summary.json: windows.csv is the new one, whole; summary.json the earlier one.
     const second = await killWhileWriting(analyze(2, out), out, 'summary.json');
     expect(second.size).toBeLessThan(next.summary.length);
-    expect(files(out)).toEqual({ windows: next.windows, summary: earlier.summary });
+    expect(files(out)).toEqual({ windows: next.windows, summary: earlier.summary, study: earlier.study });
 
-    // The next run writes both and removes what the killed runs left.
+    // Killed during study.gleaner: windows.csv and summary.json are the new ones; the study the earlier one.
+    const third = await killWhileWriting(analyze(2, out), out, 'study.gleaner');
+    expect(third.size).toBeLessThan(next.study.length);
+    expect(files(out)).toEqual({ windows: next.windows, summary: next.summary, study: earlier.study });
+
+    // The next run writes all three and removes what the killed runs left.
     expect(runCli(analyze(2, out)).status).toBe(0);
     expect(files(out)).toEqual(next);
-    expect(readdirSync(out).sort()).toEqual(['summary.json', 'windows.csv']);
+    expect(readdirSync(out).sort()).toEqual(OUTPUTS);
   });
 });

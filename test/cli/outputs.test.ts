@@ -23,7 +23,7 @@ describe('gleaner analyze output safety', () => {
     const out = join(tempDir('nested'), 'a', 'b');
     const r = runCli(['analyze', DEMO, '--k', '3', '--restarts', '1', '--out', out]);
     expect(r.status).toBe(0);
-    expect(readdirSync(out).sort()).toEqual(['summary.json', 'windows.csv']);
+    expect(readdirSync(out).sort()).toEqual(['study.gleaner', 'summary.json', 'windows.csv']);
   });
 
   it('fails with one line when --k exceeds the number of windows', () => {

@@ -53,7 +53,8 @@ export async function runBundled(main: string, args: string[], cwd: string): Pro
 
 function spawnOnce(main: string, args: string[], cwd: string): Promise<CliResult> {
   return new Promise((done, fail) => {
-    const child = spawn(process.execPath, [main, ...args], { cwd, stdio: ['ignore', 'pipe', 'pipe'] });
+    // SOURCE_DATE_EPOCH=0: the times outputs record (a study's createdAt) are fixed, so goldens hold.
+    const child = spawn(process.execPath, [main, ...args], { cwd, stdio: ['ignore', 'pipe', 'pipe'], env: { ...process.env, SOURCE_DATE_EPOCH: '0' } });
     let stdout = '';
     let stderr = '';
     child.stdout.setEncoding('utf8').on('data', (s: string) => (stdout += s));

@@ -31,11 +31,15 @@ export const CLI_CASES: CliCase[] = [
   { name: 'sweep-json', args: (p) => ['sweep', p.demo, '--k-min', '3', '--k-max', '5', '--seed', '2', '--restarts', '3', '--silhouette-sample', '500', '--json', '--progress', 'none'] },
   { name: 'run-study', args: (p) => ['run', p.study, '--out', p.out, '--progress', 'none'] },
   { name: 'run-study-one-run', args: (p) => ['run', p.study, '--out', p.out, '--run', 'run-1', '--input', p.demo, '--progress', 'none'] },
+  // The demo study (curated) applied to the demo windows: labels and manifest, byte for byte.
+  { name: 'apply-study', args: (p) => ['apply', p.study, p.demo, '--study-input', p.demo, '--out', p.out, '--progress', 'none'] },
+  { name: 'error-apply-no-input', args: (p) => ['apply', p.study, '--out', p.out], status: 2 },
   // What the command line prints for help and for mistakes (exit 2), and for a bad input (exit 1).
   { name: 'help-analyze', args: () => ['--help'] },
   { name: 'help-sweep', args: () => ['sweep', '--help'] },
   { name: 'help-run', args: () => ['run', '--help'] },
   { name: 'help-inspect', args: () => ['inspect', '--help'] },
+  { name: 'help-apply', args: () => ['apply', '--help'] },
   { name: 'version', args: () => ['--version'] },
   { name: 'error-no-command', args: () => [], status: 2 },
   { name: 'error-unknown-command', args: () => ['cluster', 'x.csv'], status: 2 },
