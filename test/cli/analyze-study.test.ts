@@ -59,7 +59,7 @@ describe('gleaner analyze writes study.gleaner', () => {
       expect(run.createdAt).toBe('1970-01-01T00:00:00.000Z');
       expect(run.curation).toEqual({ actions: [], undone: [] });
       const windows = readFileSync(join(dir, 'out/windows.csv'), 'utf8');
-      expect(Array.from(run.result.labels, String)).toEqual(column(windows, 'cluster'));
+      expect(Array.from(run.result.labels, (c) => String(c + 1))).toEqual(column(windows, 'cluster')); // files number clusters index + 1
       if (c.flags.includes('drop')) {
         expect(run.result.windows, 'the recipe dropped windows').toBeDefined();
         expect(run.result.windows!.length).toBe(study.inputs[0].rows - c.blank!.length);
