@@ -1,5 +1,6 @@
-// `npm test`: make sure the browser tests' Chromium is there (scripts/browser.mjs: installs Debian's
-// package as root when it is missing, else stops with one line saying what to install), then lint,
+// `npm test`: make sure the browser tests' Chromium and the Dask test's python3-distributed are there
+// (scripts/browser.mjs, scripts/dask.mjs: install Debian's packages as root when missing, else stop
+// with one line saying what to install), then lint,
 // typecheck, build the renderer, and every Vitest project (unit, CLI, browser end-to-end). Ends with
 // one count line, "tests: N passed, N failed" (plus ", N skipped" when any were skipped), read by CI.
 //
@@ -10,10 +11,16 @@ import { mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { ensureBrowser, machine } from './browser.mjs';
+import { ensureDask } from './dask.mjs';
 
 const browser = ensureBrowser(machine());
 if (!browser.ok) {
   console.error(browser.message);
+  process.exit(1);
+}
+const dask = ensureDask(machine());
+if (!dask.ok) {
+  console.error(dask.message);
   process.exit(1);
 }
 
