@@ -47,3 +47,38 @@ export function hexOf([r, g, b]: readonly number[]): string {
 
 /** Points with no value (missing label, feature or time) are drawn light grey. */
 export const MISSING_COLOUR = '#cfd3d8';
+
+/**
+ * Colours for the values of a column (subjects, labels, metadata) and for signal channels, so that
+ * no colour on a screen means both a cluster and something else: discrete viridis (the sequential
+ * map above, sampled at golden-ratio steps so that neighbouring codes differ; common practice for a
+ * categorical use of a sequential map), kept away from its darkest and lightest ends. None of them
+ * is a cluster colour (checked in test/app/palette.test.ts).
+ */
+export const VALUE_COLOURS: readonly string[] = Array.from({ length: 16 }, (_, i) => hexOf(viridis(0.06 + 0.86 * ((i * 0.6180339887498949) % 1))));
+
+/** The colour of value `i` (0-based) of a column, or of signal channel `i`. */
+export function valueColour(i: number): string {
+  const n = VALUE_COLOURS.length;
+  return VALUE_COLOURS[((i % n) + n) % n];
+}
+
+/** WCAG 2.x relative luminance of '#rrggbb' (sRGB, linearized). */
+export function relativeLuminance(hex: string): number {
+  const [r, g, b] = [1, 3, 5].map((o) => {
+    const c = parseInt(hex.slice(o, o + 2), 16) / 255;
+    return c <= 0.04045 ? c / 12.92 : ((c + 0.055) / 1.055) ** 2.4;
+  });
+  return 0.2126 * r + 0.7152 * g + 0.0722 * b;
+}
+
+/** WCAG 2.x contrast ratio of two colours, 1 to 21. */
+export function contrastRatio(a: string, b: string): number {
+  const [l1, l2] = [relativeLuminance(a), relativeLuminance(b)].sort((x, y) => y - x);
+  return (l1 + 0.05) / (l2 + 0.05);
+}
+
+/** Black or white text on a background, whichever contrasts more (either passes AA, 4.5:1, on every palette colour here). */
+export function textColourOn(background: string): '#000000' | '#ffffff' {
+  return contrastRatio('#000000', background) >= contrastRatio('#ffffff', background) ? '#000000' : '#ffffff';
+}

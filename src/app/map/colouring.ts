@@ -2,7 +2,7 @@ import { timeText } from '../../core/table/time-text';
 import type { Roles } from '../../core/table/roles.types';
 import type { Column, Table } from '../../core/table/table';
 import { categoriesOf, columnWithRole } from '../lib/columns';
-import { CATEGORY_COLOURS, MISSING_COLOUR, hexOf, viridis } from '../lib/palette';
+import { CATEGORY_COLOURS, MISSING_COLOUR, VALUE_COLOURS, hexOf, viridis } from '../lib/palette';
 import { packHex, packRGBA } from './raster';
 
 /** What the Map's points are coloured by. */
@@ -36,6 +36,9 @@ export interface Colouring {
 const N_CAT = CATEGORY_COLOURS.length;
 /** Category palette: the category colours, then the missing colour. */
 const CATEGORY_PALETTE = Uint32Array.from([...CATEGORY_COLOURS, MISSING_COLOUR].map(packHex));
+/** Values of a column (subject, label, metadata) never take a cluster colour (palette.ts VALUE_COLOURS). */
+const N_VAL = VALUE_COLOURS.length;
+const VALUE_PALETTE = Uint32Array.from([...VALUE_COLOURS, MISSING_COLOUR].map(packHex));
 /** Scale palette: 255 viridis steps, then the missing colour. */
 const SCALE_STEPS = 255;
 const SCALE_PALETTE = Uint32Array.from([
@@ -47,14 +50,16 @@ const SCALE_PALETTE = Uint32Array.from([
  * Colours by category codes (negative = missing). Categories beyond the palette reuse its colours
  * in turn, so the index array is always one byte per window.
  */
-export function categoryColouring(codes: Int32Array, names: string[], title: string, missingCode = -1): Colouring {
+export function categoryColouring(codes: Int32Array, names: string[], title: string, missingCode = -1, of: 'clusters' | 'values' = 'clusters'): Colouring {
+  const colours = of === 'clusters' ? CATEGORY_COLOURS : VALUE_COLOURS;
+  const n = of === 'clusters' ? N_CAT : N_VAL;
   const index = new Uint8Array(codes.length);
   for (let i = 0; i < codes.length; i++) {
     const c = codes[i];
-    index[i] = c < 0 || c === missingCode ? N_CAT : c % N_CAT;
+    index[i] = c < 0 || c === missingCode ? n : c % n;
   }
-  const entries = names.map((name, c) => ({ name, colour: c === missingCode ? MISSING_COLOUR : CATEGORY_COLOURS[c % N_CAT] }));
-  return { index, palette: CATEGORY_PALETTE, legend: { kind: 'categories', title, entries } };
+  const entries = names.map((name, c) => ({ name, colour: c === missingCode ? MISSING_COLOUR : colours[c % n] }));
+  return { index, palette: of === 'clusters' ? CATEGORY_PALETTE : VALUE_PALETTE, legend: { kind: 'categories', title, entries } };
 }
 
 /** Colours numeric values on viridis from their minimum to their maximum; NaN = missing. */
@@ -95,7 +100,7 @@ function columnColouring(column: Column, nRows: number, title: string, format?: 
   if (column.kind === 'numeric' && format) return scaleColouring(column.values, title, format);
   const cats = categoriesOf(column, nRows);
   const missing = cats.names.length > 0 && cats.names[cats.names.length - 1] === '(missing)' ? cats.names.length - 1 : -1;
-  return categoryColouring(cats.codes, cats.names, title, missing);
+  return categoryColouring(cats.codes, cats.names, title, missing, 'values');
 }
 
 /**

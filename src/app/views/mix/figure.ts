@@ -1,4 +1,4 @@
-import { categoryColour } from '../../lib/palette';
+import { textColourOn, valueColour } from '../../lib/palette';
 import type { MixBar } from './mix-bars';
 
 /** What the Mix figure needs: the bars as drawn, and cluster names and colours (curated). */
@@ -33,8 +33,9 @@ export function mixSvg(input: MixFigureInput): { svg: string; width: number; hei
     const y = PAD + TITLE_H + r * (ROW_H + GAP);
     const segs = b.segments.map((s) => {
       const x = PAD + LABEL_W + s.start * barW, w = Math.max(0.5, s.share * barW);
-      const label = w > 40 ? `<text x="${(x + 4).toFixed(1)}" y="${y + 16}" font-size="11" fill="#ffffff" paint-order="stroke" stroke="rgba(0,0,0,0.45)" stroke-width="2">${esc(s.value === '' ? '(missing)' : s.value)}</text>` : '';
-      return `<rect x="${x.toFixed(1)}" y="${y}" width="${w.toFixed(1)}" height="${ROW_H}" fill="${categoryColour(s.code)}" stroke="#ffffff"/>${label}`;
+      const fill = valueColour(s.code);
+      const label = w > 40 ? `<text x="${(x + 4).toFixed(1)}" y="${y + 16}" font-size="11" fill="${textColourOn(fill)}">${esc(s.value === '' ? '(missing)' : s.value)}</text>` : '';
+      return `<rect x="${x.toFixed(1)}" y="${y}" width="${w.toFixed(1)}" height="${ROW_H}" fill="${fill}" stroke="#ffffff"/>${label}`;
     }).join('');
     const name = `${input.name(b.cluster)}${b.bound ? ' ⚑' : ''}`;
     return `<rect x="${PAD}" y="${y + 6}" width="12" height="12" rx="2" fill="${input.colour(b.cluster)}"/>`
