@@ -2,7 +2,7 @@
  * End to end, browser mode: every view of a Ward run on the demo study at 1440×900 and 1280×720,
  * saved to test-output/screens-<size>-<view>.png for a person to open and judge. Checked here what a
  * reader needs above the fold: the Run button and the cluster list's first row, the Map legend,
- * each view's content in the dock; and no page errors.
+ * each view's content in the dock, the Mix's verdicts and the Timeline's legend; and no page errors.
  */
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -46,6 +46,9 @@ describe('every view at two window sizes', () => {
         await page.waitForTimeout(view === 'Sweep k' || view === 'Runs' ? 1500 : 600);
         await page.screenshot({ path: join(OUTPUT, `screens-${size.width}x${size.height}-${view.toLowerCase().replace(/[^a-z]+/g, '-')}.png`) });
         expect(await inView('[role="tabpanel"]'), `${view} panel at ${size.width}`).toBe(true);
+        // The verdicts and legends a view gives sit above the fold, not under its chart.
+        if (view === 'Mix') expect(await inView('ul[aria-label="Verdicts"]'), `Mix verdicts at ${size.width}`).toBe(true);
+        if (view === 'Timeline') expect(await inView('.tl .legend'), `Timeline legend at ${size.width}`).toBe(true);
       }
     }
     expect(h.pageErrors).toEqual([]);
