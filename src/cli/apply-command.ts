@@ -6,7 +6,7 @@ import { applyLabelsCsv } from '../core/apply/labels-csv';
 import { clusterIdentity } from '../core/apply/cluster-name';
 import { assignWindows, ModelError, studyModel, type StudyModel } from '../core/apply/study-model';
 import { CAUTIONS } from '../core/cautions';
-import { CancelledError, InputError, OptionError } from '../core/errors';
+import { CancelledError, InputError } from '../core/errors';
 import type { ParamSpec } from '../core/params';
 import { subjectCodes } from '../core/recipe/subject-codes';
 import { checkInputs } from '../core/study/check-inputs';
@@ -21,6 +21,7 @@ import { progressReporter, type ProgressMode, type ProgressReporter } from './pr
 import { readInputStep } from './read-input';
 import { attachSubjects } from './recipe-options';
 import { UsageError } from './usage-error';
+import { commandFailure } from './command-failure';
 import { VERSION } from './version';
 import { writeFileAtomic } from './write-atomic';
 
@@ -293,28 +294,9 @@ export async function runApply(argv: readonly string[]): Promise<number> {
     process.stdout.write(`gleaner: labelled ${windows} windows of ${outcome.inputs.length} input${outcome.inputs.length === 1 ? '' : 's'} with run ${outcome.model.runId}; wrote ${outcome.files.length} files under ${resolve(opts.out)}\n`);
     return 0;
   } catch (err) {
-    return applyFailure(err);
+    return commandFailure(err, 'apply');
   } finally {
     process.off('SIGINT', onSigint);
   }
 }
 
-function applyFailure(err: unknown): number {
-  const message = (err instanceof Error ? err.message : String(err)).replace(/\s*\n\s*/g, ' ');
-  if (err instanceof UsageError || err instanceof OptionError) {
-    process.stderr.write(`gleaner: ${message} (see gleaner apply --help)\n`);
-    return 2;
-  }
-  if (err instanceof CancelledError) {
-    process.stderr.write('gleaner: cancelled\n');
-    return 130;
-  }
-  const sys = err as { code?: unknown; path?: unknown };
-  if (typeof sys.code === 'string' && typeof sys.path === 'string') {
-    process.stderr.write(`gleaner: cannot open ${sys.path}: ${sys.code === 'ENOENT' ? 'no such file or folder' : sys.code}\n`);
-    return 1;
-  }
-  process.stderr.write(`gleaner: ${err instanceof InputError ? '' : 'error: '}${message}\n`);
-  if (process.env.GLEANER_DEBUG && err instanceof Error) process.stderr.write(`${err.stack}\n`);
-  return 1;
-}

@@ -14,6 +14,7 @@ import { OUT, PROGRESS, PROGRESS_SHORT } from './cli-flags';
 import { commandUsage, parseCommand, value, type CommandSpec } from './parse-command';
 import { progressReporter, type ProgressMode } from './progress-bar';
 import { UsageError } from './usage-error';
+import { commandFailure } from './command-failure';
 import { readInputStep } from './read-input';
 import { attachSubjects } from './recipe-options';
 import { VERSION } from './version';
@@ -175,28 +176,9 @@ export async function runRunCommand(argv: readonly string[]): Promise<number> {
     process.stdout.write(`gleaner: reproduced ${opts.study}; wrote ${outcome.files.length} files under ${resolve(opts.out)}\n`);
     return 0;
   } catch (err) {
-    return runFailure(err);
+    return commandFailure(err, 'run');
   } finally {
     process.off('SIGINT', onSigint);
   }
 }
 
-function runFailure(err: unknown): number {
-  const message = (err instanceof Error ? err.message : String(err)).replace(/\s*\n\s*/g, ' ');
-  if (err instanceof UsageError || err instanceof OptionError) {
-    process.stderr.write(`gleaner: ${message} (see gleaner run --help)\n`);
-    return 2;
-  }
-  if (err instanceof CancelledError) {
-    process.stderr.write('gleaner: cancelled\n');
-    return 130;
-  }
-  const sys = err as { code?: unknown; path?: unknown };
-  if (typeof sys.code === 'string' && typeof sys.path === 'string') {
-    process.stderr.write(`gleaner: cannot open ${sys.path}: ${sys.code === 'ENOENT' ? 'no such file or folder' : sys.code}\n`);
-    return 1;
-  }
-  process.stderr.write(`gleaner: ${err instanceof InputError ? '' : 'error: '}${message}\n`);
-  if (process.env.GLEANER_DEBUG && err instanceof Error) process.stderr.write(`${err.stack}\n`);
-  return 1;
-}
