@@ -25,6 +25,7 @@ import { attachSubjects, recipeOption, useSubjectColumn } from './recipe-options
 import { keepRows } from '../core/recipe/keep-rows';
 import { analyzeParams } from './pipeline-options';
 import { runStability } from './stability-option';
+import { runCliJob } from './cli-job';
 import { missingNotices } from '../core/table/notices';
 import { missingByFeature, recipeNotices } from '../core/recipe/notices';
 import { checkRoleColumns, printNotices } from './table-options';
@@ -79,7 +80,7 @@ export async function analyzeCommand(opts: AnalyzeOptions, deps: AnalyzeDeps): P
   if (recipe) params.recipe = recipe;
   const analyzePayload: AnalyzeJob = { matrix, params };
   const missing = missingByFeature(matrix); // before the matrix's buffer moves to the worker
-  const result = await runJob(deps, analyzePayload, [matrix.data.buffer as ArrayBuffer], 'analysing');
+  const result = await runCliJob(deps, 'analyze', analyzePayload, 'analysing', [matrix.data.buffer as ArrayBuffer]);
   const stability = opts.stability === undefined ? undefined
     : await runStability(deps, { table, roles, params, run: { labels: result.labels, windows: result.windows, cluster: result.cluster }, options: { resamples: opts.stability } });
   const told = recipeNotices(fileName, missing, result.recipe);
@@ -115,20 +116,6 @@ export async function analyzeCommand(opts: AnalyzeOptions, deps: AnalyzeDeps): P
   writeFileAtomic(outFiles.study, encodeStudy(study));
   const eventFiles = opts.events ? writeEventFiles(outDir, opts.input, table, roles, result, identities) : [];
   return { files: [outFiles.windows, outFiles.summary, outFiles.study, ...eventFiles], rows: n, result };
-}
-
-async function runJob(deps: AnalyzeDeps, payload: AnalyzeJob, transfer: ArrayBuffer[], label: string): Promise<AnalysisResult> {
-  const running = deps.client.run('analyze', payload, {
-    transfer,
-    onProgress: (p) => deps.progress.update(`${label}: ${p.stage}`, p.fraction, p.detail),
-  });
-  deps.onJob(running as RunningJob<unknown>);
-  try {
-    return await running.result;
-  } finally {
-    deps.onJob(null);
-    deps.progress.finish();
-  }
 }
 
 /** The outputs must never land on the input file (for example `--out .` next to windows.csv). */

@@ -1,27 +1,10 @@
 import type { StabilityResult } from '../core/stability/stability';
-import type { JobClient, RunningJob } from '../worker/client';
-import type { Jobs, StabilityJob } from '../worker/jobs';
-import type { ProgressReporter } from './progress-bar';
-
-/** What the stability job needs of the analyze command's deps. */
-export interface StabilityDeps {
-  client: JobClient<Jobs>;
-  progress: ProgressReporter;
-  onJob(job: RunningJob<unknown> | null): void;
-}
+import type { StabilityJob } from '../worker/jobs';
+import { runCliJob, type CliJobDeps } from './cli-job';
 
 /** --stability: the stability job on the worker, with its own progress bar; Ctrl-C cancels it. */
-export async function runStability(deps: StabilityDeps, payload: StabilityJob): Promise<StabilityResult> {
-  const running = deps.client.run('stability', payload, {
-    onProgress: (p) => deps.progress.update(`stability: ${p.stage}`, p.fraction, p.detail),
-  });
-  deps.onJob(running as RunningJob<unknown>);
-  try {
-    return await running.result;
-  } finally {
-    deps.onJob(null);
-    deps.progress.finish();
-  }
+export function runStability(deps: CliJobDeps, payload: StabilityJob): Promise<StabilityResult> {
+  return runCliJob(deps, 'stability', payload, 'stability');
 }
 
 /** The settings of the assessment, for summary.json (`stabilityRule`). */
