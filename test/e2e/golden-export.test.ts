@@ -13,7 +13,7 @@ import type { Download, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { readZip } from '../../src/core/study/zip';
 import { checkGolden, maskText, type Outputs } from '../golden/store';
-import { openThroughChooser, ROOT, startHarness, waitForRuns, type Harness } from './harness';
+import { ROOT, startHarness, waitForRuns, type Harness, openAndWait } from './harness';
 
 const DEMO = join(ROOT, 'demo-data/windows.csv');
 const ISO = /\d{4}-\d\d-\d\dT\d\d:\d\d:\d\d\.\d{3}Z/;
@@ -68,8 +68,7 @@ describe('golden outputs of the app', () => {
   it('a curated k-means run: Save and the Export dialog write the golden bytes', async () => {
     const { page } = h;
     await page.goto(h.url);
-    await openThroughChooser(page, DEMO);
-    await page.waitForFunction(() => (window as unknown as { __gleaner: { windows: number } }).__gleaner.windows > 0, undefined, { timeout: 60_000 });
+    await openAndWait(page, DEMO);
     await page.getByLabel('Clusters (k)').fill('6');
     await page.getByLabel('Seed').fill('4');
     await page.getByRole('button', { name: 'Run', exact: true }).click();

@@ -133,3 +133,9 @@ export async function waitForRuns(page: Page, runs: number, timeout = 120_000): 
     { timeout, polling: 100 },
   );
 }
+
+/** Opens a windows table through the chooser and waits until the app holds its windows. */
+export async function openAndWait(page: Page, path: string): Promise<void> {
+  await openThroughChooser(page, path);
+  await page.waitForFunction(() => (window as unknown as { __gleaner: { windows: number } }).__gleaner.windows > 0, undefined, { timeout: 60_000 });
+}

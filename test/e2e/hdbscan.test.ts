@@ -8,7 +8,7 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { runCli } from '../cli/run-cli';
 import { tempDir } from '../temp';
-import { openThroughChooser, OUTPUT, ROOT, startHarness, waitForRuns, type Harness } from './harness';
+import { OUTPUT, ROOT, startHarness, waitForRuns, type Harness, openAndWait } from './harness';
 
 const DEMO = join(ROOT, 'demo-data/windows.csv');
 
@@ -34,8 +34,7 @@ describe('HDBSCAN from the run panel, end to end', () => {
 
     const { page } = h;
     await page.goto(h.url);
-    await openThroughChooser(page, DEMO);
-    await page.waitForFunction(() => (window as unknown as { __gleaner: { windows: number } }).__gleaner.windows > 0, undefined, { timeout: 60_000 });
+    await openAndWait(page, DEMO);
     await page.locator('#param-cluster').selectOption('hdbscan');
     await expect(page.getByLabel('Clusters (k)').count()).resolves.toBe(0);
     await page.getByLabel('Min. cluster size').fill('40');

@@ -10,7 +10,7 @@ import { join } from 'node:path';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { readZip } from '../../src/core/study/zip';
-import { openThroughChooser, OUTPUT, ROOT, startHarness, waitForRuns, type Harness } from './harness';
+import { OUTPUT, ROOT, startHarness, waitForRuns, type Harness, openAndWait } from './harness';
 
 const DEMO = join(ROOT, 'demo-data/windows.csv');
 const DEMO_WINDOWS = readFileSync(DEMO, 'utf8').split(/\r?\n/).filter((l) => l.length > 0).length - 1;
@@ -126,8 +126,7 @@ describe('one identity per cluster, on screen and in the export', () => {
   it('agrees row for row after rename, merge, split, set aside and a tree re-cut; the flagged cluster shows its flag', async () => {
     const { page } = h;
     await page.goto(h.url);
-    await openThroughChooser(page, DEMO);
-    await page.waitForFunction(() => (window as unknown as { __gleaner: { windows: number } }).__gleaner.windows > 0, undefined, { timeout: 60_000 });
+    await openAndWait(page, DEMO);
     await page.locator('#param-cluster').selectOption('ward');
     await page.getByLabel('Clusters (k)').fill('8');
     await page.getByRole('button', { name: 'Run', exact: true }).click();

@@ -6,7 +6,7 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { openThroughChooser, OUTPUT, ROOT, startHarness, type Harness } from './harness';
+import { OUTPUT, ROOT, startHarness, type Harness, openAndWait } from './harness';
 
 const DEMO = join(ROOT, 'demo-data/windows.csv');
 const HEADER = readFileSync(DEMO, 'utf8').split('\n')[0].split(',');
@@ -23,8 +23,7 @@ describe('column roles: filter and bulk change', () => {
   it('filters the list by name and sets every column shown to one role', async () => {
     const { page } = h;
     await page.goto(h.url);
-    await openThroughChooser(page, DEMO);
-    await page.waitForFunction(() => (window as unknown as { __gleaner: { windows: number } }).__gleaner.windows > 0, undefined, { timeout: 60_000 });
+    await openAndWait(page, DEMO);
     const summary = page.locator('#roles-title + p.summary');
     const featuresBefore = Number((await summary.textContent())!.match(/(\d+) features/)![1]);
 

@@ -6,7 +6,7 @@
  */
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { openThroughChooser, OUTPUT, ROOT, startHarness, waitForRuns, type Harness } from './harness';
+import { OUTPUT, ROOT, startHarness, waitForRuns, type Harness, openAndWait } from './harness';
 
 const DEMO = join(ROOT, 'demo-data/windows.csv');
 const VIEWS = ['Tree', 'Sweep k', 'Mix', 'Fingerprints', 'Timeline', 'Traces', 'Quality', 'Runs'];
@@ -25,8 +25,7 @@ describe('every view at two window sizes', () => {
     const { page } = h;
     await page.setViewportSize(SIZES[0]);
     await page.goto(h.url);
-    await openThroughChooser(page, DEMO);
-    await page.waitForFunction(() => (window as unknown as { __gleaner: { windows: number } }).__gleaner.windows > 0, undefined, { timeout: 60_000 });
+    await openAndWait(page, DEMO);
     await page.locator('#param-cluster').selectOption('ward');
     await page.getByLabel('Clusters (k)').fill('7');
     await page.getByRole('button', { name: 'Run', exact: true }).click();
