@@ -7,6 +7,7 @@ import { featureMatrix } from '../../core/table/matrix';
 import { describeError, isCancelled } from '../lib/errors';
 import { ownBuffer } from '../lib/hash';
 import { QualityState } from './quality.svelte';
+import { StabilityState } from './stability.svelte';
 import { Curation } from './curation.svelte';
 import { DockState } from './dock.svelte';
 import { ViewFigures } from '../lib/figures';
@@ -46,6 +47,7 @@ export class AppState {
   readonly studyFile: StudyFile;
   readonly treeCut: TreeCut;
   readonly sweep: SweepState;
+  readonly stability: StabilityState;
   aboutOpen = $state(false);
   /** Completed runs since start (tests wait on it). */
   runCount = $state(0);
@@ -62,6 +64,7 @@ export class AppState {
     this.studyFile = new StudyFile({ study, curation, map, dock, params, selection, status, host, openFile: (file) => this.openFile(file) });
     this.treeCut = new TreeCut({ study, params, status, curation }, this.client);
     this.sweep = new SweepState({ study, params, runAnalysis: () => this.runAnalysis() }, this.client);
+    this.stability = new StabilityState({ study, curation, status, track: (job) => this.track(job) }, this.client);
   }
 
   async openFromHost(): Promise<void> {
