@@ -45,6 +45,9 @@ export interface TestHook {
   readonly liveFrames: number;
   /** The user's drag of the live Map (CSS pixels) since the run started. */
   readonly livePan: { x: number; y: number };
+  /** The last live frame's view and the Map's view (data centre and scale), to check the hand-over. */
+  readonly liveLastView: { centreX: number; centreY: number; scale: number } | null;
+  readonly mapView: { centreX: number; centreY: number; scale: number } | null;
 }
 
 export function installTestHook(app: AppState): void {
@@ -71,6 +74,14 @@ export function installTestHook(app: AppState): void {
     get partials() { return app.live.partials; },
     get liveFrames() { return app.live.frames; },
     get livePan() { return { x: app.live.panX, y: app.live.panY }; },
+    get liveLastView() {
+      const v = app.live.lastView;
+      return v && { centreX: v.centreX, centreY: v.centreY, scale: v.scale };
+    },
+    get mapView() {
+      const v = app.map.view;
+      return v && { centreX: v.centreX, centreY: v.centreY, scale: v.scale };
+    },
     screenPosition(i) {
       const run = app.study.run, view = app.map.view, canvas = app.map.canvas;
       if (!run || !view || !canvas || i < 0 || i >= run.result.labels.length) return null;

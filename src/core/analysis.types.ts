@@ -173,6 +173,11 @@ export interface AnalysisPartial {
   kind: 'layout';
   /** Interleaved x, y of the windows being embedded (the sample, when sampling). */
   coords: Float32Array;
+  /**
+   * The input row (window of the feature matrix) of each point of `coords`, present only when they
+   * are not simply rows 0..n−1 (the recipe dropped windows, or a sample is embedded).
+   */
+  windows?: Int32Array;
   /** 'iteration' (t-SNE) or 'epoch' (UMAP), its number and the planned total. */
   unit: 'iteration' | 'epoch';
   step: number;

@@ -80,7 +80,7 @@ export async function analyze(matrix: FeatureMatrix, params: AnalysisParams, ctx
 
   stage('embedding', 0, { pca: 'PCA', tsne: 't-SNE', umap: 'UMAP' }[choices.embed.method]);
   const subjectCodes = matrix.subjectCodes && (n < matrix.n ? Int32Array.from(prepared.windows, (w) => matrix.subjectCodes![w]) : matrix.subjectCodes);
-  const embedded = await embedStage({ data, n, d, subjectCodes, seed: params.seed }, choices, ctx, (name, f, detail) => stage(name, f, detail, spans.embedding));
+  const embedded = await embedStage({ data, n, d, subjectCodes, ...(n < matrix.n ? { windows: prepared.windows } : {}), seed: params.seed }, choices, ctx, (name, f, detail) => stage(name, f, detail, spans.embedding));
   const { coords } = embedded;
   await ctx.checkpoint();
 

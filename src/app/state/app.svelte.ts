@@ -12,6 +12,7 @@ import { Curation } from './curation.svelte';
 import { DockState } from './dock.svelte';
 import { ViewFigures } from '../lib/figures';
 import { LiveLayout } from './live-layout.svelte';
+import { liveSources } from './live-sources';
 import { MapState } from './map.svelte';
 import { placedNote, runDescription } from './run-text';
 import { RunParams } from './params.svelte';
@@ -145,7 +146,12 @@ export class AppState {
     }
     const featureNames = matrix.featureNames;
     this.status.start(`Running ${runDescription(params)} on ${matrix.n} windows…`);
-    this.live.start();
+    const previous = this.study.run;
+    const live = liveSources({
+      previous, curated: previous ? this.curation.colouring() : null, nInput: matrix.n,
+      colourBy: this.map.colourBy, table, roles,
+    });
+    this.live.start(live.sources, live.why);
     const job = this.client.run('analyze', { matrix, params, cacheKey: matrixKey(source.sha256, roles) }, {
       onProgress: (p) => {
         this.status.progress(p.stage, p.fraction, p.detail);
@@ -160,7 +166,16 @@ export class AppState {
       if (this.current !== job) return; // superseded by a newer action
       this.study.setRun({ result, params, roles, featureNames });
       this.selection.clear();
-      this.map.fitNext = true;
+      // A t-SNE or UMAP map continues from its last live frame (same coordinates, same view).
+      const lastView = this.live.lastView;
+      if (lastView && result.embed.method !== 'pca') {
+        this.map.view = lastView;
+        this.map.fitNext = false;
+        this.map.continueView = true;
+        this.map.userMoved = this.live.zoom !== 1 || this.live.panX !== 0 || this.live.panY !== 0;
+      } else {
+        this.map.fitNext = true;
+      }
       this.runCount++;
       const sil = result.metrics.silhouette;
       this.status.finish(`${result.cluster.k} clusters in ${matrix.n} windows · silhouette ${Number.isFinite(sil) ? sil.toFixed(2) : 'n/a'} · seed ${params.seed}${placedNote(result)}`);

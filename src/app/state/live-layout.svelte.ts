@@ -1,4 +1,6 @@
 import type { AnalysisPartial } from '../../core/analysis.types';
+import type { LiveSource } from '../map/live-colouring';
+import type { MapView } from '../map/view';
 
 /**
  * The layout of a running t-SNE or UMAP as the worker offers it (a few times per second), for the
@@ -8,6 +10,16 @@ import type { AnalysisPartial } from '../../core/analysis.types';
 export class LiveLayout {
   /** The latest offered coordinates (the sample's, when sampling); null when no run is live. */
   coords = $state.raw<Float32Array | null>(null);
+  /** The input row (window) of each live point; null when they are rows 0..n-1. */
+  windows = $state.raw<Int32Array | null>(null);
+  /**
+   * What the live points may be coloured by, tried in order (taken when the run starts: the
+   * previous run's curated clusters, then the chosen colour-by), and why none applies if none does.
+   */
+  sources = $state.raw<readonly LiveSource[]>([]);
+  why = $state('');
+  /** The last live frame's view (fit, zoom and pan), which the final Map continues from. */
+  lastView: MapView | null = null;
   unit = $state<AnalysisPartial['unit']>('iteration');
   step = $state(0);
   steps = $state(0);
@@ -21,8 +33,12 @@ export class LiveLayout {
   zoom = $state(1);
   private running = false;
 
-  start(): void {
+  start(sources: readonly LiveSource[] = [], why = ''): void {
     this.coords = null;
+    this.windows = null;
+    this.sources = sources;
+    this.why = why;
+    this.lastView = null;
     this.panX = 0;
     this.panY = 0;
     this.zoom = 1;
@@ -36,6 +52,7 @@ export class LiveLayout {
     if (!this.running || p?.kind !== 'layout') return;
     this.partials++;
     this.coords = p.coords;
+    this.windows = p.windows ?? null;
     this.unit = p.unit;
     this.step = p.step;
     this.steps = p.steps;

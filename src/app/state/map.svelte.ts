@@ -12,6 +12,11 @@ export class MapState {
   tool = $state<MapTool>('pan');
   /** Set after a new run: the Map fits the new points into view on its next draw. */
   fitNext = $state(false);
+  /**
+   * Set when a t-SNE or UMAP run ends: `view` is the last live frame's, kept (not refitted) on the
+   * next draw even if the canvas size differs, so the final Map continues from the live one.
+   */
+  continueView = false;
   /** The user zoomed or panned since the last fit; until then a resize refits the view. */
   userMoved = false;
   /** The last drawn frame, for the status line and the test hook. */

@@ -17,6 +17,8 @@ export interface EmbedInput {
   d: number;
   /** Subject code per analysed window (-1 = none), for the stratified sample. */
   subjectCodes?: Int32Array;
+  /** The input row of each analysed window, when the recipe dropped some (for the partials). */
+  windows?: Int32Array;
   seed: number;
 }
 
@@ -77,9 +79,13 @@ export async function embedStage(input: EmbedInput, choices: PipelineChoices, ct
     checkpoint: () => ctx.checkpoint(),
     progress: (stage, f, detail) => report('embedding', layoutShare * f, detail ? `${stage} · ${detail}` : stage),
   };
+  // The input row of each live point (copied per partial: a posted partial's buffers are transferred).
+  const rows = sample && input.windows ? Int32Array.from(sample, (s) => input.windows![s]) : (sample ?? input.windows);
   const offer = (coords: Float32Array, unit: AnalysisPartial['unit'], step: number, steps: number, cost?: number) => {
     if (!ctx.partial || !ctx.wantsPartial?.()) return;
-    const value: AnalysisPartial = { kind: 'layout', coords, unit, step, steps, ...(cost !== undefined ? { cost } : {}) };
+    const value: AnalysisPartial = {
+      kind: 'layout', coords, unit, step, steps, ...(rows ? { windows: rows.slice() } : {}), ...(cost !== undefined ? { cost } : {}),
+    };
     ctx.partial(value);
   };
 

@@ -84,6 +84,26 @@ describe('analyze: embedding choices', () => {
     expect(offers[0]).toMatchObject({ kind: 'layout', unit: 'epoch', steps: 40 });
     expect(offers[0].coords).toHaveLength(240);
     expect(offers[offers.length - 1].step).toBe(40);
+    expect(offers[0].windows).toBeUndefined(); // all rows, in order
+  });
+
+  it('names the input row of each live point when a sample is embedded; the final map keeps the last frame as it is', async () => {
+    const offers: AnalysisPartial[] = [];
+    const ctx: JobContext = { ...quietContext, wantsPartial: () => true, partial: (v) => offers.push(v as AnalysisPartial) };
+    const r = await analyze(blobs(3, 60, 6), params({ embed: UMAP, sampleAbove: 100 }), ctx);
+    const last = offers[offers.length - 1];
+    expect(last.step).toBe(40);
+    const rows = last.windows!;
+    expect(rows).toHaveLength(100);
+    expect(new Set(rows).size).toBe(100);
+    expect(Math.max(...rows)).toBeLessThan(180);
+    expect(offers[0].windows).not.toBe(rows); // a copy per partial (posted partials are transferred)
+    // No centring or scaling after the last epoch: the embedded windows sit where the last frame drew them.
+    for (let s = 0; s < rows.length; s++) {
+      expect(r.coords[2 * rows[s]]).toBe(last.coords[2 * s]);
+      expect(r.coords[2 * rows[s] + 1]).toBe(last.coords[2 * s + 1]);
+      expect(r.placed![rows[s]]).toBe(0);
+    }
   });
 });
 
