@@ -7,7 +7,7 @@ import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { hookState, openThroughChooser, OUTPUT, ROOT, startHarness, waitForRuns, type Harness } from './harness';
+import { hookState, OUTPUT, ROOT, startWithTable, waitForRuns, type Harness } from './harness';
 
 const DEMO = join(ROOT, 'demo-data/windows.csv');
 const DEMO_WINDOWS = readFileSync(DEMO, 'utf8').split(/\r?\n/).filter((l) => l.length > 0).length - 1;
@@ -22,10 +22,7 @@ const live = (page: Page): Promise<LiveHook> =>
 describe('browser mode: t-SNE and UMAP runs', () => {
   let h: Harness;
   beforeAll(async () => {
-    h = await startHarness();
-    await h.page.goto(h.url);
-    await openThroughChooser(h.page, DEMO);
-    await h.page.waitForFunction((n) => (window as unknown as { __gleaner: { windows: number } }).__gleaner.windows === n, DEMO_WINDOWS, { timeout: 60_000 });
+    h = await startWithTable(DEMO, DEMO_WINDOWS);
   });
   afterAll(async () => {
     await h?.close();

@@ -139,3 +139,12 @@ export async function openAndWait(page: Page, path: string): Promise<void> {
   await openThroughChooser(page, path);
   await page.waitForFunction(() => (window as unknown as { __gleaner: { windows: number } }).__gleaner.windows > 0, undefined, { timeout: 60_000 });
 }
+
+/** A harness whose page has the windows table at `path` open, all its `windows` rows read. */
+export async function startWithTable(path: string, windows: number): Promise<Harness> {
+  const h = await startHarness();
+  await h.page.goto(h.url);
+  await openThroughChooser(h.page, path);
+  await h.page.waitForFunction((n) => (window as unknown as { __gleaner: { windows: number } }).__gleaner.windows === n, windows, { timeout: 60_000 });
+  return h;
+}
